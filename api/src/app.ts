@@ -1,0 +1,79 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { csrfSync } from 'csrf-sync';
+import { pinoHttp } from 'pino-http';
+import type { Logger } from 'pino';
+import type pg from 'pg';
+import { createAuthRouter } from './auth/auth.router.js';
+import { bearerAuth } from './auth/bearer.js';
+import { createPassport } from './auth/passport.js';
+import { createSessionMiddleware } from './auth/session.js';
+import type { Config } from './config/config.js';
+import type { Db } from './db/knex.js';
+import { apiNotFound, errorHandler } from './http/error-handler.js';
+import { buildOpenApi } from './http/openapi.js';
+import { createRouteTable } from './http/route.js';
+import { registerAccessTokenRoutes } from './modules/access-tokens/access-tokens.routes.js';
+import { registerAuditRoutes } from './modules/audit/audit.routes.js';
+import { registerDevMailRoutes } from './modules/dev-mail/dev-mail.routes.js';
+import { registerHealthRoutes } from './modules/health/health.routes.js';
+import { registerUserRoutes } from './modules/users/users.routes.js';
+import { z } from 'zod';
+
+export interface AppDeps {
+  config: Config;
+  db: Db;
+  /** The pool behind db, shared with the session store. */
+  pool: pg.Pool;
+  logger: Logger;
+  version: string;
+}
+
+/** Builds the Express app without listening (tests start it on port 0). */
+export function createApp(deps: AppDeps): Express {
+  const { config, db, pool, logger } = deps;
+  const app = express();
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+  app.use(helmet({ contentSecurityPolicy: { directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null } } }));
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(express.json({ limit: '2mb' }));
+  app.use(createSessionMiddleware(config, pool));
+
+  const passport = createPassport(config, db);
+  app.use(passport.initialize());
+  app.use(passport.session());
+  app.use(bearerAuth(db));
+
+  const { generateToken, isRequestValid } = csrfSync({ getTokenFromRequest: (req) => req.get('x-csrf-token') });
+  const routes = createRouteTable(isRequestValid);
+  app.use(createAuthRouter({ config, db, passport, csrfValid: isRequestValid }));
+
+  routes.add({ method: 'get', path: '/api/v1/csrf-token', access: 'public', tag: 'security', summary: 'The CSRF token for state-changing browser requests (header x-csrf-token)', response: z.object({ token: z.string() }) },
+    ({ req }) => ({ token: generateToken(req) }));
+  registerHealthRoutes(routes, config, db);
+  registerUserRoutes(routes, db);
+  registerAccessTokenRoutes(routes, db);
+  registerAuditRoutes(routes, db);
+  registerDevMailRoutes(routes, db, config.DEV_MAILBOX);
+  const openApi = buildOpenApi(routes, deps.version);
+  routes.add({ method: 'get', path: '/api/v1/openapi.json', access: 'public', tag: 'documentation', summary: 'This OpenAPI document' }, () => openApi);
+
+  app.use(routes.router);
+  app.use(['/api', '/auth'], apiNotFound);
+  serveWebApp(app, config.WEB_DIST);
+  app.use(errorHandler);
+  return app;
+}
+
+/** The built web app, with index.html for every client-side route. */
+function serveWebApp(app: Express, dist: string): void {
+  const index = path.join(dist, 'index.html');
+  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  app.get('/{*splat}', (_req, res) => {
+    if (fs.existsSync(index)) res.sendFile(index);
+    else res.status(503).type('text').send('The web app is not built yet: run npm run build (npm start does it for you).');
+  });
+}

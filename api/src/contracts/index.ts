@@ -1,0 +1,3 @@
+export * from './roles.js';
+export * from './users.js';
+export * from './errors.js';

@@ -1,0 +1,49 @@
+import type { AddressInfo } from 'node:net';
+import { simpleParser, type AddressObject } from 'mailparser';
+import pg from 'pg';
+import { SMTPServer } from 'smtp-server';
+
+export interface MailServer {
+  port: number;
+  close(): Promise<void>;
+}
+
+const addresses = (field: AddressObject | AddressObject[] | undefined): string[] =>
+  (Array.isArray(field) ? field : field ? [field] : []).flatMap((a) => a.value.map((v) => v.address ?? '')).filter(Boolean);
+
+/**
+ * The local SMTP server: accepts every message on 127.0.0.1 and stores it in dev_mail, where
+ * admins read it through /api/v1/dev/mail. It stands in for the site's mail relay.
+ */
+export async function startMailServer(options: { port: number; databaseUrl: string }): Promise<MailServer> {
+  const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 2 });
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ['STARTTLS', 'AUTH'],
+    banner: 'Shadowloop local mail capture',
+    size: 5 * 1024 * 1024,
+    logger: false,
+    onData(stream, session, callback) {
+      simpleParser(stream)
+        .then(async (mail) => {
+          const to = addresses(mail.to);
+          const envelopeTo = session.envelope.rcptTo.map((r) => r.address);
+          await pool.query(
+            `INSERT INTO dev_mail (message_id, from_address, to_addresses, subject, text, html) VALUES ($1, $2, $3, $4, $5, $6)`,
+            [mail.messageId ?? null, addresses(mail.from)[0] ?? null, to.length ? to : envelopeTo,
+              mail.subject ?? '', mail.text ?? '', typeof mail.html === 'string' ? mail.html : null],
+          );
+          callback();
+        })
+        .catch((error: Error) => callback(error));
+    },
+  });
+  await new Promise<void>((resolve) => server.listen(options.port, '127.0.0.1', resolve));
+  return {
+    port: (server.server.address() as AddressInfo).port,
+    close: async () => {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await pool.end();
+    },
+  };
+}

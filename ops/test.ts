@@ -1,0 +1,39 @@
+import { spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { freePort } from './lib/ports.js';
+import { startCluster } from './lib/postgres.js';
+import { ensureWebBuild } from './lib/web-build.js';
+
+/**
+ * npm test: the test cluster (.data/pg-test, a free port, fsync off), the web build the e2e suite
+ * serves, then every vitest project in one run. Each suite creates and drops its own database.
+ */
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const log = (line: string) => console.log(`[test] ${line}`);
+const outputDir = path.join(root, 'test-output');
+fs.mkdirSync(path.join(root, '.data'), { recursive: true });
+fs.rmSync(outputDir, { recursive: true, force: true });
+fs.mkdirSync(outputDir, { recursive: true });
+
+const cluster = startCluster(path.join(root, '.data/pg-test'), await freePort(), { durable: false });
+log(`test cluster on 127.0.0.1:${cluster.port}`);
+let status = 1;
+try {
+  ensureWebBuild(root, log);
+  const reportFile = path.join(outputDir, 'vitest-report.json');
+  const result = spawnSync(
+    process.execPath,
+    [path.join(root, 'node_modules/vitest/vitest.mjs'), 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...process.argv.slice(2)],
+    { cwd: root, stdio: 'inherit', env: { ...process.env, SHADOWLOOP_TEST_PG_URL: cluster.adminUrl() } },
+  );
+  status = result.status ?? 1;
+  if (fs.existsSync(reportFile)) {
+    const report = JSON.parse(fs.readFileSync(reportFile, 'utf8')) as { numPassedTests: number; numFailedTests: number; numPendingTests: number };
+    console.log(`\ntests: ${report.numPassedTests} passed, ${report.numFailedTests} failed, ${report.numPendingTests} skipped`);
+  }
+} finally {
+  cluster.stop();
+}
+process.exit(status);

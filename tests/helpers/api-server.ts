@@ -1,0 +1,45 @@
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import pg from 'pg';
+import { pino } from 'pino';
+import { createApp } from '../../api/src/app.js';
+import { loadConfig } from '../../api/src/config/config.js';
+import { createDb } from '../../api/src/db/knex.js';
+import type { StackInfo } from './test-env.js';
+
+export interface RunningApi {
+  url: string;
+  close(): Promise<void>;
+}
+
+/** The real api, in this process, on a free port, against the run's throwaway database. */
+export async function startApi(stack: StackInfo, env: Record<string, string> = {}): Promise<RunningApi> {
+  const config = loadConfig({
+    PORT: '0',
+    DATABASE_URL: stack.databaseUrl,
+    SESSION_SECRET: 'integration-test-session-secret-0123456789',
+    OIDC_ISSUER: stack.idpIssuer,
+    OIDC_CLIENT_ID: stack.clientId,
+    OIDC_CLIENT_SECRET: stack.clientSecret,
+    SMTP_PORT: String(stack.smtpPort),
+    DEV_MAILBOX: 'true',
+    LOG_LEVEL: 'silent',
+    SIGN_IN_RATE_LIMIT_PER_MINUTE: '1000',
+    ...env,
+  });
+  const pool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
+  const db = createDb(config.DATABASE_URL, 5);
+  const app = createApp({ config, db, pool, logger: pino({ level: 'silent' }), version: 'test' });
+  const server = http.createServer(app);
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  return {
+    url,
+    close: async () => {
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await db.destroy();
+      await pool.end();
+    },
+  };
+}

@@ -19,7 +19,7 @@ fs.mkdirSync(outputDir, { recursive: true });
 
 const cluster = startCluster(path.join(root, '.data/pg-test'), await freePort(), { durable: false });
 log(`test cluster on 127.0.0.1:${cluster.port}`);
-let status = 1;
+let status: number;
 try {
   ensureWebBuild(root, log);
   const reportFile = path.join(outputDir, 'vitest-report.json');

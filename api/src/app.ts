@@ -37,7 +37,9 @@ export function createApp(deps: AppDeps): Express {
   const app = express();
   app.set('trust proxy', 'loopback');
   app.disable('x-powered-by');
-  app.use(helmet({ contentSecurityPolicy: { directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null } } }));
+  // form-action must admit the identity provider: the sign-in form's redirect goes there.
+  const csp = { 'img-src': ["'self'", 'data:', 'blob:'], 'form-action': ["'self'", new URL(config.OIDC_ISSUER).origin], 'upgrade-insecure-requests': null };
+  app.use(helmet({ contentSecurityPolicy: { directives: csp } }));
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(express.json({ limit: '2mb' }));
   app.use(createSessionMiddleware(config, pool));

@@ -1,0 +1,67 @@
+import type { QueryClient } from '@tanstack/react-query';
+import type { RouteObject } from 'react-router';
+import { NotFoundPage } from '../components/errors/not-found-page';
+import { RootRouteError, RouteError } from '../components/errors/route-error';
+import { FrameSkeleton } from '../components/layouts/frame-skeleton';
+import { SignedInFrame } from '../components/layouts/signed-in-frame';
+import { PageLoading } from '../components/ui/page-loading';
+import { sectionRole } from '../config/sections';
+import { accessTokensQueryOptions } from '../features/access-tokens/api/get-access-tokens';
+import { RequireRole } from '../features/session/components/require-role';
+import { signedInUserLoader, warmCacheLoader } from './loaders';
+import { adminRoutes } from './routes/admin/admin-routes';
+import { AboutPage } from './routes/about';
+import { AlertsPage } from './routes/alerts';
+import { FloorPage } from './routes/floor';
+import { LoopsPage } from './routes/loops';
+import { ModelsPage } from './routes/models';
+import { RotaPage } from './routes/rota';
+import { SignInPage } from './routes/signin';
+import { MyAccessTokensPage } from './routes/tokens';
+
+export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
+  return [
+    {
+      id: 'root',
+      errorElement: <RootRouteError />,
+      children: [
+        { path: '/signin', element: <SignInPage /> },
+        {
+          id: 'frame',
+          loader: signedInUserLoader(queryClient),
+          HydrateFallback: FrameSkeleton,
+          element: <SignedInFrame />,
+          children: [
+            {
+              errorElement: <RouteError />,
+              children: [
+                { index: true, element: <FloorPage /> },
+                { path: 'loops', element: <LoopsPage /> },
+                {
+                  path: 'models',
+                  element: <RequireRole role={sectionRole('models')} />,
+                  children: [{ index: true, element: <ModelsPage /> }],
+                },
+                { path: 'alerts', element: <AlertsPage /> },
+                { path: 'rota', element: <RotaPage /> },
+                { path: 'about', element: <AboutPage /> },
+                {
+                  path: 'tokens',
+                  loader: warmCacheLoader(queryClient, () => accessTokensQueryOptions('mine')),
+                  HydrateFallback: PageLoading,
+                  element: <MyAccessTokensPage />,
+                },
+                {
+                  path: 'admin',
+                  element: <RequireRole role={sectionRole('admin')} />,
+                  children: adminRoutes(queryClient),
+                },
+                { path: '*', element: <NotFoundPage /> },
+              ],
+            },
+          ],
+        },
+      ],
+    },
+  ];
+}

@@ -1,0 +1,31 @@
+import { queryOptions } from '@tanstack/react-query';
+import { apiFetch } from '../../../lib/api';
+
+export type AccessToken = {
+  id: string;
+  label: string;
+  prefix: string;
+  createdAt: string;
+  lastUsedAt: string | null;
+  revokedAt: string | null;
+  userEmail?: string;
+};
+
+export type AccessTokenScope = 'mine' | 'all';
+
+export const accessTokenKeys = {
+  all: ['access-tokens'] as const,
+  list: (scope: AccessTokenScope) => [...accessTokenKeys.all, 'list', { scope }] as const,
+};
+
+export function getAccessTokens(scope: AccessTokenScope, signal?: AbortSignal): Promise<AccessToken[]> {
+  const path = scope === 'all' ? '/api/v1/access-tokens?all=true' : '/api/v1/access-tokens';
+  return apiFetch<AccessToken[]>(path, { signal });
+}
+
+export function accessTokensQueryOptions(scope: AccessTokenScope) {
+  return queryOptions({
+    queryKey: accessTokenKeys.list(scope),
+    queryFn: ({ signal }) => getAccessTokens(scope, signal),
+  });
+}

@@ -1,0 +1,46 @@
+import { keepPreviousData, queryOptions } from '@tanstack/react-query';
+import { apiFetch } from '../../../lib/api';
+
+export type AuditEntry = {
+  id: string;
+  at: string;
+  actorEmail: string | null;
+  action: string;
+  target: string | null;
+  details: unknown;
+};
+
+export type AuditPage = { items: AuditEntry[]; total: number };
+
+export type AuditQuery = { limit: number; offset: number; action: string };
+
+export const AUDIT_PAGE_SIZE = 50;
+
+export const auditKeys = {
+  all: ['audit'] as const,
+  list: (query: AuditQuery) => [...auditKeys.all, 'list', query] as const,
+};
+
+export function parseAuditSearch(search: URLSearchParams): AuditQuery {
+  const page = Number.parseInt(search.get('page') ?? '1', 10);
+  const safePage = Number.isFinite(page) && page > 0 ? page : 1;
+  return {
+    limit: AUDIT_PAGE_SIZE,
+    offset: (safePage - 1) * AUDIT_PAGE_SIZE,
+    action: (search.get('action') ?? '').trim(),
+  };
+}
+
+export function getAuditLog(query: AuditQuery, signal?: AbortSignal): Promise<AuditPage> {
+  const params = new URLSearchParams({ limit: String(query.limit), offset: String(query.offset) });
+  if (query.action) params.set('action', query.action);
+  return apiFetch<AuditPage>(`/api/v1/audit?${params.toString()}`, { signal });
+}
+
+export function auditLogQueryOptions(query: AuditQuery) {
+  return queryOptions({
+    queryKey: auditKeys.list(query),
+    queryFn: ({ signal }) => getAuditLog(query, signal),
+    placeholderData: keepPreviousData,
+  });
+}

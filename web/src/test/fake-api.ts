@@ -1,0 +1,52 @@
+import { vi } from 'vitest';
+
+export type FakeReply = { status?: number; body?: unknown };
+export type FakeHandler = (request: { url: string; init: RequestInit }) => FakeReply;
+export type FakeRoutes = Record<string, FakeReply | FakeHandler>;
+
+export function jsonResponse({ status = 200, body }: FakeReply): Response {
+  if (status === 204 || body === undefined) return new Response(null, { status });
+  return new Response(JSON.stringify(body), {
+    status,
+    headers: { 'content-type': 'application/json' },
+  });
+}
+
+export function errorBody(code: string, message: string, details?: unknown) {
+  return { error: { code, message, details } };
+}
+
+/**
+ * Replaces the global fetch with a table of "METHOD /path" answers (the query string is part
+ * of the path when the key contains "?"). Unlisted requests answer 404 in the API's error shape.
+ */
+export function stubFetch(routes: FakeRoutes) {
+  const fetchMock = vi.fn(async (input: RequestInfo | URL, init: RequestInit = {}) => {
+    const url = typeof input === 'string' ? input : input instanceof URL ? input.href : input.url;
+    const { pathname, search } = new URL(url, 'http://shadowloop.test');
+    const method = (init.method ?? 'GET').toUpperCase();
+    const entry = routes[`${method} ${pathname}${search}`] ?? routes[`${method} ${pathname}`];
+    if (!entry) return jsonResponse({ status: 404, body: errorBody('not_found', `No route ${method} ${pathname}`) });
+    return jsonResponse(typeof entry === 'function' ? entry({ url, init }) : entry);
+  });
+  vi.stubGlobal('fetch', fetchMock);
+  return fetchMock;
+}
+
+export const HEALTHY = {
+  status: 'ok',
+  checks: {
+    database: { ok: true },
+    mail: { ok: true },
+    identityProvider: { ok: true },
+    simulator: { ok: true, lastBeatAt: null },
+  },
+};
+
+export function signedInAs(roles: string[], name = 'Test Person') {
+  return {
+    'GET /api/v1/me': { body: { id: 'u1', email: 'person@quillmere.example', name, roles } },
+    'GET /api/health': { body: HEALTHY },
+    'GET /api/v1/csrf-token': { body: { token: 'csrf-1' } },
+  } satisfies FakeRoutes;
+}

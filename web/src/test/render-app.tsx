@@ -1,0 +1,22 @@
+import { cleanup, render } from '@testing-library/react';
+import { createMemoryRouter } from 'react-router';
+import { afterEach, vi } from 'vitest';
+import { createShadowloopApp } from '../app/create-app';
+import { AppProvider } from '../app/provider';
+import { forgetCsrfToken } from '../lib/api';
+
+afterEach(() => {
+  cleanup();
+  forgetCsrfToken();
+  vi.unstubAllGlobals();
+});
+
+/** Renders the whole app, routes and all, at a path, with a query client that never retries. */
+export function renderApp(path: string) {
+  const app = createShadowloopApp({
+    createRouter: (routes) => createMemoryRouter(routes, { initialEntries: [path] }),
+    queryClient: { retry: false },
+  });
+  const view = render(<AppProvider app={app} />);
+  return { ...view, ...app };
+}

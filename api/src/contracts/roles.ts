@@ -1,13 +1,5 @@
 import { z } from 'zod';
+import { ROLES } from './role-names.js';
 
-/** Shadowloop roles, as stored in user_roles (DESIGN.md §2). */
-export const ROLES = ['operator', 'engineer', 'oncall', 'admin'] as const;
-export type Role = (typeof ROLES)[number];
+export { ROLES, ROLE_LABELS, type Role } from './role-names.js';
 export const RoleSchema = z.enum(ROLES);
-
-export const ROLE_LABELS: Record<Role, string> = {
-  operator: 'operator',
-  engineer: 'control engineer',
-  oncall: 'on-call engineer',
-  admin: 'administrator',
-};

@@ -38,3 +38,7 @@ export const AuditEntrySchema = z.object({
   target: z.string().nullable(),
   details: z.unknown(),
 });
+
+export type AccessToken = z.infer<typeof AccessTokenSchema>;
+export type CreatedAccessToken = z.infer<typeof CreatedAccessTokenSchema>;
+export type AuditEntry = z.infer<typeof AuditEntrySchema>;

@@ -1,20 +1,12 @@
-export const ROLES = ['operator', 'engineer', 'oncall', 'admin'] as const;
+import type { Me } from '@shadowloop/api/contracts';
+import { ROLE_LABELS as ROLE_WORDS, ROLES, type Role } from '@shadowloop/api/contracts/role-names';
 
-export type Role = (typeof ROLES)[number];
+export { ROLES, type Role };
+export type SignedInUser = Me;
 
-export const ROLE_LABELS: Record<Role, string> = {
-  operator: 'Operator',
-  engineer: 'Control engineer',
-  oncall: 'On-call engineer',
-  admin: 'Administrator',
-};
-
-export type SignedInUser = {
-  id: string;
-  email: string;
-  name: string;
-  roles: Role[];
-};
+export const ROLE_LABELS = Object.fromEntries(
+  ROLES.map((role) => [role, ROLE_WORDS[role].charAt(0).toUpperCase() + ROLE_WORDS[role].slice(1)]),
+) as Record<Role, string>;
 
 export function hasRole(user: Pick<SignedInUser, 'roles'>, role: Role | undefined): boolean {
   return role === undefined || user.roles.includes(role);

@@ -2,13 +2,9 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api';
 import { accessTokenKeys } from './get-access-tokens';
 
-export type CreatedAccessToken = {
-  id: string;
-  label: string;
-  prefix: string;
-  createdAt: string;
-  token: string;
-};
+import type { CreatedAccessToken } from '@shadowloop/api/contracts';
+
+export type { CreatedAccessToken };
 
 export function createAccessToken(label: string): Promise<CreatedAccessToken> {
   return apiFetch<CreatedAccessToken>('/api/v1/access-tokens', { method: 'POST', body: { label } });

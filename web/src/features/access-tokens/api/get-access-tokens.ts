@@ -1,15 +1,9 @@
 import { queryOptions } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api';
 
-export type AccessToken = {
-  id: string;
-  label: string;
-  prefix: string;
-  createdAt: string;
-  lastUsedAt: string | null;
-  revokedAt: string | null;
-  userEmail?: string;
-};
+import type { AccessToken } from '@shadowloop/api/contracts';
+
+export type { AccessToken };
 
 export type AccessTokenScope = 'mine' | 'all';
 

@@ -1,14 +1,9 @@
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api';
 
-export type AuditEntry = {
-  id: string;
-  at: string;
-  actorEmail: string | null;
-  action: string;
-  target: string | null;
-  details: unknown;
-};
+import type { AuditEntry } from '@shadowloop/api/contracts';
+
+export type { AuditEntry };
 
 export type AuditPage = { items: AuditEntry[]; total: number };
 

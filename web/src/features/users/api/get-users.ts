@@ -1,15 +1,8 @@
 import { queryOptions } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api';
-import type { Role } from '../../session/roles';
+import type { User } from '@shadowloop/api/contracts';
 
-export type UserAccount = {
-  id: string;
-  email: string;
-  name: string;
-  roles: Role[];
-  createdAt: string;
-  lastSignInAt: string | null;
-};
+export type UserAccount = User;
 
 export const userKeys = {
   all: ['users'] as const,

@@ -1,3 +1,4 @@
 export * from './roles.js';
 export * from './users.js';
 export * from './errors.js';
+export * from './registry.js';

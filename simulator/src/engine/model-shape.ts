@@ -1,0 +1,24 @@
+import { assertColumns, assertRows, assertSquare, assertVector } from './shape.js';
+import type { StateSpaceModel } from './types.js';
+
+/** Orders of a model: states n, inputs m, outputs p. */
+export interface ModelShape {
+  states: number;
+  inputs: number;
+  outputs: number;
+}
+
+/** Checks the model's matrices and operating point against each other; throws a RangeError naming the part. */
+export function modelShape(where: string, model: StateSpaceModel): ModelShape {
+  const states = assertSquare(where, 'A', model.A);
+  const inputs = assertRows(where, 'B', model.B, states, 'the order of A');
+  const outputs = model.C ? assertColumns(where, 'C', model.C, states, 'the order of A') : states;
+  if (model.D) {
+    assertRows(where, 'D', model.D, outputs, 'the rows of C');
+    assertColumns(where, 'D', model.D, inputs, 'the columns of B');
+  }
+  if (model.x0) assertVector(where, 'x0', model.x0, states);
+  if (model.u0) assertVector(where, 'u0', model.u0, inputs);
+  if (model.y0) assertVector(where, 'y0', model.y0, outputs);
+  return { states, inputs, outputs };
+}

@@ -1,0 +1,116 @@
+import { modelShape } from './model-shape.js';
+import { assertVector } from './shape.js';
+import type { Matrix, StateSpaceModel } from './types.js';
+
+/** One sample of a model: the next state and the output at the current sample. */
+export interface StepResult {
+  /** x(k+1) in engineering units. */
+  x: number[];
+  /** y(k) in engineering units. */
+  y: number[];
+}
+
+/**
+ * Writes `x(k+1)` into `xNext` and `y(k)` into `y` for the state `x(k)` and input `u(k)`, all in
+ * engineering units. Allocates nothing; `xNext` may be the same array as `x`.
+ */
+export type Stepper = (x: Float64Array, u: Float64Array, xNext: Float64Array, y: Float64Array) => void;
+
+/**
+ * Advances a model one sample: `x(k+1) = x0 + A (x − x0) + B (u − u0)`,
+ * `y(k) = y0 + C (x − x0) + D (u − u0)` (C = I, D = 0 and y0 = C x0 + D u0 when omitted).
+ * Allocates its results; for the per-sample loop use {@link createStepper}.
+ *
+ * @param model - the model and its operating point
+ * @param x - state x(k) (length n, engineering units)
+ * @param u - input u(k) (length m, engineering units)
+ */
+export function step(model: StateSpaceModel, x: number[], u: number[]): StepResult {
+  const { states, outputs } = modelShape('step', model);
+  const run = createStepper(model);
+  const xNext = new Float64Array(states);
+  const y = new Float64Array(outputs);
+  run(Float64Array.from(x), Float64Array.from(u), xNext, y);
+  return { x: Array.from(xNext), y: Array.from(y) };
+}
+
+/**
+ * Prepares the per-sample update of {@link step} for the simulator's hot path: `[A B]` and `[C D]`
+ * are copied once into row-major Float64Arrays (rows zero-padded to a multiple of 4), the deviations
+ * `[x − x0; u − u0]` go to one scratch array, and each call does about `(n + p)(n + m)`
+ * multiply-adds with no allocation, in four partial sums per row so that the additions do not wait
+ * on each other. Lengths are checked on every call.
+ *
+ * @param model - the model and its operating point (copied; later changes to it are not seen)
+ * @returns a {@link Stepper}
+ */
+export function createStepper(model: StateSpaceModel): Stepper {
+  const { states: n, inputs: m, outputs: p } = modelShape('createStepper', model);
+  // rows padded with zeros to a multiple of 4: one loop shape for every model size, no tail loop
+  const width = 4 * Math.ceil((n + m) / 4);
+  const AB = joinRows(model.A, model.B, width);
+  // with neither C nor D the output is the state itself: no product needed
+  const CD = model.C || model.D ? joinRows(model.C ?? identityRows(n), model.D ?? zeroRows(p, m), width) : null;
+  const x0 = Float64Array.from(model.x0 ?? new Array<number>(n).fill(0));
+  const u0 = Float64Array.from(model.u0 ?? new Array<number>(m).fill(0));
+  const y0 = Float64Array.from(model.y0 ?? operatingOutput(model, p));
+  const deviation = new Float64Array(width);
+  return (x, u, xNext, y) => {
+    if (x.length !== n || u.length !== m || xNext.length !== n || y.length !== p) {
+      assertVector('stepper', 'x', x, n);
+      assertVector('stepper', 'u', u, m);
+      assertVector('stepper', 'xNext', xNext, n);
+      assertVector('stepper', 'y', y, p);
+    }
+    for (let i = 0; i < n; i++) deviation[i] = x[i] - x0[i];
+    for (let j = 0; j < m; j++) deviation[n + j] = u[j] - u0[j];
+    if (CD) for (let i = 0; i < p; i++) y[i] = y0[i] + dotRow(CD, i * width, deviation, width);
+    else for (let i = 0; i < p; i++) y[i] = y0[i] + deviation[i];
+    for (let i = 0; i < n; i++) xNext[i] = x0[i] + dotRow(AB, i * width, deviation, width);
+  };
+}
+
+/** Σ_j M[start + j] z[j] for a length that is a multiple of 4, with four independent partial sums. */
+function dotRow(M: Float64Array, start: number, z: Float64Array, length: number): number {
+  let s0 = 0;
+  let s1 = 0;
+  let s2 = 0;
+  let s3 = 0;
+  for (let j = 0; j < length; j += 4) {
+    s0 += M[start + j] * z[j];
+    s1 += M[start + j + 1] * z[j + 1];
+    s2 += M[start + j + 2] * z[j + 2];
+    s3 += M[start + j + 3] * z[j + 3];
+  }
+  return s0 + s1 + (s2 + s3);
+}
+
+/** Row-major `[L R 0]` with rows `width` long (L and R have the same number of rows). */
+function joinRows(L: Matrix, R: Matrix, width: number): Float64Array {
+  const out = new Float64Array(L.length * width);
+  L.forEach((row, i) => {
+    out.set(row, i * width);
+    out.set(R[i], i * width + row.length);
+  });
+  return out;
+}
+
+function identityRows(n: number): Matrix {
+  return Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 1 : 0)));
+}
+
+function zeroRows(rows: number, columns: number): Matrix {
+  return Array.from({ length: rows }, () => new Array<number>(columns).fill(0));
+}
+
+/** Default output operating point `C x0 + D u0`, so that with no y0 the output is `C x + D u`. */
+function operatingOutput(model: StateSpaceModel, p: number): number[] {
+  const x0 = model.x0;
+  const u0 = model.u0;
+  return Array.from({ length: p }, (_, i) => {
+    let s = 0;
+    if (x0) s += model.C ? model.C[i].reduce((sum, c, j) => sum + c * x0[j], 0) : x0[i];
+    if (u0 && model.D) s += model.D[i].reduce((sum, d, j) => sum + d * u0[j], 0);
+    return s;
+  });
+}

@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { freePort } from './lib/ports.js';
-import { startCluster } from './lib/postgres.js';
+import { startCluster, stopCluster } from './lib/postgres.js';
 import { ensureWebBuild } from './lib/web-build.js';
 
 /**
@@ -17,7 +17,10 @@ fs.mkdirSync(path.join(root, '.data'), { recursive: true });
 fs.rmSync(outputDir, { recursive: true, force: true });
 fs.mkdirSync(outputDir, { recursive: true });
 
-const cluster = startCluster(path.join(root, '.data/pg-test'), await freePort(), { durable: false });
+removeAbandonedClusters(path.join(root, '.data'));
+// One throwaway cluster per run, so that runs in parallel (two terminals, two checkouts) never meet.
+const clusterDir = path.join(root, '.data', `pg-test-${process.pid}`);
+const cluster = startCluster(clusterDir, await freePort(), { durable: false });
 log(`test cluster on 127.0.0.1:${cluster.port}`);
 let status: number;
 try {
@@ -35,5 +38,31 @@ try {
   }
 } finally {
   cluster.stop();
+  fs.rmSync(clusterDir, { recursive: true, force: true });
+  fs.rmSync(`${clusterDir}.password`, { force: true });
 }
 process.exit(status);
+
+/** Test clusters left by runs that were killed: their owning process is gone. */
+function removeAbandonedClusters(dataDir: string): void {
+  for (const name of fs.readdirSync(dataDir)) {
+    const pid = /^pg-test-(\d+)$/.exec(name)?.[1];
+    if (!pid || isAlive(Number(pid))) continue;
+    try {
+      stopCluster(path.join(dataDir, name));
+    } catch {
+      // already stopped
+    }
+    fs.rmSync(path.join(dataDir, name), { recursive: true, force: true });
+    fs.rmSync(path.join(dataDir, `${name}.password`), { force: true });
+  }
+}
+
+function isAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+}

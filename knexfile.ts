@@ -6,7 +6,11 @@ import type { Knex } from 'knex';
 const root = path.dirname(fileURLToPath(import.meta.url));
 const migrationsDir = path.join(root, 'migrations');
 const seedsDir = path.join(root, 'seeds');
-const tsFiles = (dir: string) => fs.readdirSync(dir).filter((f) => f.endsWith('.ts')).sort();
+const tsFiles = (dir: string) =>
+  fs
+    .readdirSync(dir)
+    .filter((f) => f.endsWith('.ts'))
+    .sort();
 // Loaded through this module's own import() so that tsx and vitest both transpile them.
 const load = (file: string) => import(pathToFileURL(file).href);
 

@@ -54,7 +54,9 @@ export async function up(knex: Knex): Promise<void> {
       END LOOP;
       RETURN made;
     END $$`);
-  await knex.raw(`SELECT shadowloop_ensure_day_partitions((now() AT TIME ZONE 'UTC')::date - 2, (now() AT TIME ZONE 'UTC')::date + 7)`);
+  await knex.raw(
+    `SELECT shadowloop_ensure_day_partitions((now() AT TIME ZONE 'UTC')::date - 2, (now() AT TIME ZONE 'UTC')::date + 7)`,
+  );
 
   await knex.schema.createTable('twin_state', (t) => {
     t.uuid('loop_id').primary().references('loops.id').onDelete('CASCADE');
@@ -106,9 +108,19 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  for (const table of ['ingest_source_loops', 'ingest_sources', 'loop_tracking', 'loop_leases', 'twin_state', 'predictions', 'readings']) {
+  for (const table of [
+    'ingest_source_loops',
+    'ingest_sources',
+    'loop_tracking',
+    'loop_leases',
+    'twin_state',
+    'predictions',
+    'readings',
+  ]) {
     await knex.schema.dropTableIfExists(table);
   }
   await knex.raw('DROP FUNCTION IF EXISTS shadowloop_ensure_day_partitions(date, date)');
-  await knex.raw('ALTER TABLE loops DROP COLUMN residual_band, DROP COLUMN stale_after_samples, DROP COLUMN maintenance');
+  await knex.raw(
+    'ALTER TABLE loops DROP COLUMN residual_band, DROP COLUMN stale_after_samples, DROP COLUMN maintenance',
+  );
 }

@@ -3,6 +3,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './idp/demo-accounts.js';
 import { ensureDatabase, migrateAndSeed, withDatabase } from './lib/database.js';
+import { rotateDemoIngestSource } from './lib/demo-ingest-source.js';
 import { takeLock } from './lib/lock.js';
 import { isListening } from './lib/ports.js';
 import { startCluster, type Cluster } from './lib/postgres.js';
@@ -23,10 +24,17 @@ const log = (line: string) => console.log(`[start] ${line}`);
 fs.mkdirSync(dataDir, { recursive: true });
 const lock = takeLock(path.join(dataDir, 'start.lock'), url);
 if (lock.heldBy) {
-  console.error(`Shadowloop is already running from this folder (${lock.heldBy}). Stop it (Ctrl-C in its terminal) before starting another.`);
+  console.error(
+    `Shadowloop is already running from this folder (${lock.heldBy}). Stop it (Ctrl-C in its terminal) before starting another.`,
+  );
   process.exit(1);
 }
-for (const [name, p] of [['PORT', port], ['IDP_PORT', idpPort], ['SMTP_PORT', smtpPort], ['PG_PORT', pgPort]] as const) {
+for (const [name, p] of [
+  ['PORT', port],
+  ['IDP_PORT', idpPort],
+  ['SMTP_PORT', smtpPort],
+  ['PG_PORT', pgPort],
+] as const) {
   if (await isListening(p)) {
     lock.release();
     console.error(`Port ${p} (${name}) is already in use by another program. Stop it or set ${name} to a free port.`);
@@ -37,6 +45,15 @@ for (const [name, p] of [['PORT', port], ['IDP_PORT', idpPort], ['SMTP_PORT', sm
 let cluster: Cluster | undefined;
 let services: Service[] = [];
 let stopping = false;
+
+/** A service that exits while we are not stopping takes everything down with it. */
+function supervise(service: Service): void {
+  service.child.once('exit', (code, signal) => {
+    if (stopping) return;
+    console.error(`[start] ${service.name} exited unexpectedly (${signal ?? `code ${code}`}); stopping everything.`);
+    void shutdown(1);
+  });
+}
 
 async function shutdown(code: number): Promise<never> {
   if (stopping) return new Promise(() => undefined);
@@ -65,25 +82,51 @@ try {
   ensureWebBuild(root, log);
 
   const secrets = localSecrets(path.join(dataDir, 'secrets.json'));
-  const common = { DATABASE_URL: databaseUrl, OIDC_CLIENT_ID: 'shadowloop', OIDC_CLIENT_SECRET: secrets.oidcClientSecret };
+  const common = {
+    DATABASE_URL: databaseUrl,
+    OIDC_CLIENT_ID: 'shadowloop',
+    OIDC_CLIENT_SECRET: secrets.oidcClientSecret,
+  };
   services = [
     startService('idp', 'ops/idp/main.ts', { ...common, IDP_PORT: String(idpPort) }, root),
     startService('mail', 'ops/mail/main.ts', { ...common, SMTP_PORT: String(smtpPort) }, root),
-    startService('api', 'api/src/index.ts', {
-      ...common, PORT: String(port), PUBLIC_URL: url, SESSION_SECRET: secrets.sessionSecret,
-      OIDC_ISSUER: `http://127.0.0.1:${idpPort}`, SMTP_PORT: String(smtpPort), DEV_MAILBOX: 'true',
-      LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
-    }, root),
+    startService(
+      'api',
+      'api/src/index.ts',
+      {
+        ...common,
+        PORT: String(port),
+        PUBLIC_URL: url,
+        SESSION_SECRET: secrets.sessionSecret,
+        OIDC_ISSUER: `http://127.0.0.1:${idpPort}`,
+        SMTP_PORT: String(smtpPort),
+        DEV_MAILBOX: 'true',
+        LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
+      },
+      root,
+    ),
     startService('simulator', 'simulator/src/index.ts', common, root),
   ];
-  for (const service of services) {
-    service.child.once('exit', (code, signal) => {
-      if (stopping) return;
-      console.error(`[start] ${service.name} exited unexpectedly (${signal ?? `code ${code}`}); stopping everything.`);
-      void shutdown(1);
-    });
-  }
+  services.forEach(supervise);
   await waitForHttp(`${url}/api/health`, 60_000);
+  if (process.env.DEMO_PLANT !== 'false') {
+    // the demo plant posts through the real ingest API, so it starts once the api answers
+    const source = await rotateDemoIngestSource(databaseUrl);
+    const demo = startService(
+      'demo-plant',
+      'simulator/src/demo-plant/main.ts',
+      {
+        DATABASE_URL: databaseUrl,
+        API_URL: url,
+        DEMO_PLANT_TOKEN: source.token,
+        DEMO_SPEED: process.env.DEMO_SPEED ?? '1',
+      },
+      root,
+    );
+    services.push(demo);
+    supervise(demo);
+    log(`demo plant playing ${source.loops} Quillmere loops (DEMO_PLANT=false turns it off)`);
+  }
   console.log(`
   Shadowloop is running at ${url}
   Sign in with a demo account (password "${DEMO_PASSWORD}"):

@@ -14,7 +14,6 @@ const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const log = (line: string) => console.log(`[test] ${line}`);
 const outputDir = path.join(root, 'test-output');
 fs.mkdirSync(path.join(root, '.data'), { recursive: true });
-fs.rmSync(outputDir, { recursive: true, force: true });
 fs.mkdirSync(outputDir, { recursive: true });
 
 removeAbandonedClusters(path.join(root, '.data'));
@@ -25,16 +24,30 @@ log(`test cluster on 127.0.0.1:${cluster.port}`);
 let status: number;
 try {
   ensureWebBuild(root, log);
-  const reportFile = path.join(outputDir, 'vitest-report.json');
+  const reportFile = path.join(outputDir, `vitest-report-${process.pid}.json`);
   const result = spawnSync(
     process.execPath,
-    [path.join(root, 'node_modules/vitest/vitest.mjs'), 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`, ...process.argv.slice(2)],
+    [
+      path.join(root, 'node_modules/vitest/vitest.mjs'),
+      'run',
+      '--reporter=default',
+      '--reporter=json',
+      `--outputFile.json=${reportFile}`,
+      ...process.argv.slice(2),
+    ],
     { cwd: root, stdio: 'inherit', env: { ...process.env, SHADOWLOOP_TEST_PG_URL: cluster.adminUrl() } },
   );
   status = result.status ?? 1;
   if (fs.existsSync(reportFile)) {
-    const report = JSON.parse(fs.readFileSync(reportFile, 'utf8')) as { numPassedTests: number; numFailedTests: number; numPendingTests: number };
-    console.log(`\ntests: ${report.numPassedTests} passed, ${report.numFailedTests} failed, ${report.numPendingTests} skipped`);
+    const report = JSON.parse(fs.readFileSync(reportFile, 'utf8')) as {
+      numPassedTests: number;
+      numFailedTests: number;
+      numPendingTests: number;
+    };
+    console.log(
+      `\ntests: ${report.numPassedTests} passed, ${report.numFailedTests} failed, ${report.numPendingTests} skipped`,
+    );
+    fs.renameSync(reportFile, path.join(outputDir, 'vitest-report.json'));
   }
 } finally {
   cluster.stop();
@@ -46,7 +59,7 @@ process.exit(status);
 /** Test clusters left by runs that were killed: their owning process is gone. */
 function removeAbandonedClusters(dataDir: string): void {
   for (const name of fs.readdirSync(dataDir)) {
-    const pid = /^pg-test-(\d+)$/.exec(name)?.[1];
+    const pid = /^pg-(?:test|bench)-(\d+)$/.exec(name)?.[1];
     if (!pid || isAlive(Number(pid))) continue;
     try {
       stopCluster(path.join(dataDir, name));

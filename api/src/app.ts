@@ -15,11 +15,19 @@ import type { Db } from './db/knex.js';
 import { apiNotFound, errorHandler } from './http/error-handler.js';
 import { buildOpenApi } from './http/openapi.js';
 import { createRouteTable } from './http/route.js';
+import { registerAnalysisRoutes } from './modules/analysis/analysis.routes.js';
+import { registerAreaRoutes } from './modules/areas/areas.routes.js';
+import { registerLoopRoutes } from './modules/loops/loops.routes.js';
+import { registerModelVersionRoutes } from './modules/model-versions/model-versions.routes.js';
+import { registerReviewRoutes } from './modules/model-versions/review.routes.js';
 import { registerAccessTokenRoutes } from './modules/access-tokens/access-tokens.routes.js';
 import { registerAuditRoutes } from './modules/audit/audit.routes.js';
 import { registerDevMailRoutes } from './modules/dev-mail/dev-mail.routes.js';
 import { registerHealthRoutes } from './modules/health/health.routes.js';
 import { registerUserRoutes } from './modules/users/users.routes.js';
+import { registerLiveTwinRoutes } from './modules/live-twin.routes.js';
+import { createPartitionKeeper, type PartitionKeeper } from './modules/readings/partitions.js';
+import { createTwinPublisher, type TwinPublisher } from './realtime/publisher.js';
 import { z } from 'zod';
 
 export interface AppDeps {
@@ -29,6 +37,10 @@ export interface AppDeps {
   pool: pg.Pool;
   logger: Logger;
   version: string;
+  /** Where twin samples and status changes go (the realtime server attaches to it); silent when absent. */
+  publisher?: TwinPublisher;
+  /** Shared with the hourly partition upkeep so that both know which days exist. */
+  partitions?: PartitionKeeper;
 }
 
 /** Builds the Express app without listening (tests start it on port 0). */
@@ -38,9 +50,15 @@ export function createApp(deps: AppDeps): Express {
   app.set('trust proxy', 'loopback');
   app.disable('x-powered-by');
   // form-action must admit the identity provider: the sign-in form's redirect goes there.
-  const csp = { 'img-src': ["'self'", 'data:', 'blob:'], 'form-action': ["'self'", new URL(config.OIDC_ISSUER).origin], 'upgrade-insecure-requests': null };
+  const csp = {
+    'img-src': ["'self'", 'data:', 'blob:'],
+    'form-action': ["'self'", new URL(config.OIDC_ISSUER).origin],
+    'upgrade-insecure-requests': null,
+  };
   app.use(helmet({ contentSecurityPolicy: { directives: csp } }));
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  // Readings batches (up to 5,000 readings of up to 100 signals) may exceed the general 2 MB limit.
+  app.use('/api/v1/loops/:loopId/readings', express.json({ limit: `${config.INGEST_MAX_BODY_MB}mb` }));
   app.use(express.json({ limit: '2mb' }));
   app.use(createSessionMiddleware(config, pool));
 
@@ -53,15 +71,45 @@ export function createApp(deps: AppDeps): Express {
   const routes = createRouteTable(isRequestValid);
   app.use(createAuthRouter({ config, db, passport, csrfValid: isRequestValid }));
 
-  routes.add({ method: 'get', path: '/api/v1/csrf-token', access: 'public', tag: 'security', summary: 'The CSRF token for state-changing browser requests (header x-csrf-token)', response: z.object({ token: z.string() }) },
-    ({ req }) => ({ token: generateToken(req) }));
+  routes.add(
+    {
+      method: 'get',
+      path: '/api/v1/csrf-token',
+      access: 'public',
+      tag: 'security',
+      summary: 'The CSRF token for state-changing browser requests (header x-csrf-token)',
+      response: z.object({ token: z.string() }),
+    },
+    ({ req }) => ({ token: generateToken(req) }),
+  );
   registerHealthRoutes(routes, config, db);
   registerUserRoutes(routes, db);
   registerAccessTokenRoutes(routes, db);
   registerAuditRoutes(routes, db);
   registerDevMailRoutes(routes, db, config.DEV_MAILBOX);
+  registerAreaRoutes(routes, db);
+  registerLoopRoutes(routes, db);
+  registerModelVersionRoutes(routes, db);
+  registerReviewRoutes(routes, db);
+  registerAnalysisRoutes(routes);
+  registerLiveTwinRoutes(routes, {
+    config,
+    db,
+    pool,
+    partitions: deps.partitions ?? createPartitionKeeper(db),
+    publisher: deps.publisher ?? createTwinPublisher(),
+  });
   const openApi = buildOpenApi(routes, deps.version);
-  routes.add({ method: 'get', path: '/api/v1/openapi.json', access: 'public', tag: 'documentation', summary: 'This OpenAPI document' }, () => openApi);
+  routes.add(
+    {
+      method: 'get',
+      path: '/api/v1/openapi.json',
+      access: 'public',
+      tag: 'documentation',
+      summary: 'This OpenAPI document',
+    },
+    () => openApi,
+  );
 
   app.use(routes.router);
   app.use(['/api', '/auth'], apiNotFound);
@@ -76,6 +124,7 @@ function serveWebApp(app: Express, dist: string): void {
   app.use(express.static(dist, { index: false, maxAge: '1h' }));
   app.get('/{*splat}', (_req, res) => {
     if (fs.existsSync(index)) res.sendFile(index);
-    else res.status(503).type('text').send('The web app is not built yet: run npm run build (npm start does it for you).');
+    else
+      res.status(503).type('text').send('The web app is not built yet: run npm run build (npm start does it for you).');
   });
 }

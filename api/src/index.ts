@@ -4,19 +4,39 @@ import pg from 'pg';
 import { createApp } from './app.js';
 import { loadConfig } from './config/config.js';
 import { createDb } from './db/knex.js';
+import { createPartitionKeeper } from './modules/readings/partitions.js';
+import { createTwinPublisher } from './realtime/publisher.js';
+import { createRealtime } from './realtime/realtime.js';
 
 /** The api process: parse config, connect, listen, shut down cleanly on SIGTERM. */
 const config = loadConfig();
 const logger = pino({ level: config.LOG_LEVEL, name: 'api' });
 const pool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 10 });
 const db = createDb(config.DATABASE_URL);
-const app = createApp({ config, db, pool, logger, version: process.env.npm_package_version ?? '0.1.0' });
+const publisher = createTwinPublisher();
+const partitions = createPartitionKeeper(db);
+const app = createApp({
+  config,
+  db,
+  pool,
+  logger,
+  version: process.env.npm_package_version ?? '0.1.0',
+  publisher,
+  partitions,
+});
 const server = http.createServer(app);
+const realtime = createRealtime(server, { config, db, pool, logger, publisher });
+const stopPartitionUpkeep = partitions.startUpkeep(logger);
 server.listen(config.PORT, config.HOST, () => logger.info(`api listening on ${config.PUBLIC_URL}`));
 
+let stopping = false;
+// SIGINT reaches every process of a terminal's group and the supervisor then sends SIGTERM: once is enough.
 async function shutdown(): Promise<void> {
+  if (stopping) return;
+  stopping = true;
+  stopPartitionUpkeep();
   server.closeAllConnections();
-  await new Promise<void>((resolve) => server.close(() => resolve()));
+  await realtime.close();
   await db.destroy();
   await pool.end();
   process.exit(0);

@@ -42,22 +42,30 @@ function createProvider(issuer: string, client: IdpClient, accounts: IdpAccount[
   const byEmail = new Map(accounts.map((a) => [a.email, a]));
   const jwk = generateKeyPairSync('rsa', { modulusLength: 2048 }).privateKey.export({ format: 'jwk' });
   return new Provider(issuer, {
-    clients: [{
-      client_id: client.clientId,
-      client_secret: client.clientSecret,
-      client_name: 'Shadowloop',
-      application_type: 'native',
-      redirect_uris: client.redirectUris,
-      grant_types: ['authorization_code'],
-      response_types: ['code'],
-      token_endpoint_auth_method: 'client_secret_basic',
-    }],
+    clients: [
+      {
+        client_id: client.clientId,
+        client_secret: client.clientSecret,
+        client_name: 'Shadowloop',
+        application_type: 'native',
+        redirect_uris: client.redirectUris,
+        grant_types: ['authorization_code'],
+        response_types: ['code'],
+        token_endpoint_auth_method: 'client_secret_basic',
+      },
+    ],
     findAccount: (_ctx, id) => {
       const account = byEmail.get(id);
       if (!account) return undefined;
       return {
         accountId: id,
-        claims: () => ({ sub: id, email: account.email, email_verified: true, name: account.name, groups: account.roles.map((r) => `shadowloop:${r}`) }),
+        claims: () => ({
+          sub: id,
+          email: account.email,
+          email_verified: true,
+          name: account.name,
+          groups: account.roles.map((r) => `shadowloop:${r}`),
+        }),
       };
     },
     claims: { openid: ['sub'], email: ['email', 'email_verified'], profile: ['name'], groups: ['groups'] },
@@ -67,13 +75,25 @@ function createProvider(issuer: string, client: IdpClient, accounts: IdpAccount[
     cookies: { keys: [randomBytes(32).toString('base64url')] },
     jwks: { keys: [jwk as never] },
     pkce: { required: () => false },
-    ttl: { Interaction: 15 * 60, Session: 12 * 3600, Grant: 12 * 3600, AccessToken: 10 * 60, IdToken: 10 * 60, AuthorizationCode: 60 },
+    ttl: {
+      Interaction: 15 * 60,
+      Session: 12 * 3600,
+      Grant: 12 * 3600,
+      AccessToken: 10 * 60,
+      IdToken: 10 * 60,
+      AuthorizationCode: 60,
+    },
   });
 }
 
 /** Starts the local OpenID Connect provider on 127.0.0.1:port (0 picks a free port). */
 export async function startIdentityProvider(options: {
-  port: number; client: IdpClient; accounts: IdpAccount[]; issuerHost?: string;
+  port: number;
+  client: IdpClient;
+  accounts: IdpAccount[];
+  issuerHost?: string;
+  /** Password attempts per minute per address (default 30). */
+  loginAttemptsPerMinute?: number;
 }): Promise<IdentityProvider> {
   const app = express();
   const server = http.createServer(app);
@@ -82,21 +102,33 @@ export async function startIdentityProvider(options: {
   const provider = createProvider(issuer, options.client, options.accounts);
   const checkPassword = passwordChecker(options.accounts);
   const form = express.urlencoded({ extended: false });
-  const loginLimit = rateLimit({ windowMs: 60_000, limit: 30, standardHeaders: 'draft-8', legacyHeaders: false });
+  const loginLimit = rateLimit({
+    windowMs: 60_000,
+    limit: options.loginAttemptsPerMinute ?? 30,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+  });
 
   app.use('/fonts', express.static(fontDir, { maxAge: '1d' }));
   app.get('/interaction/:uid', async (req, res) => {
     const { uid, prompt, params } = await provider.interactionDetails(req, res);
     res.type('html');
     if (prompt.name === 'login') return res.send(loginPage(uid));
-    const scopes = String(params.scope ?? '').split(' ').filter((s) => s !== 'openid');
+    const scopes = String(params.scope ?? '')
+      .split(' ')
+      .filter((s) => s !== 'openid');
     return res.send(consentPage(uid, 'Shadowloop', ['your identity (subject)', ...scopes]));
   });
   app.post('/interaction/:uid/login', loginLimit, form, async (req, res) => {
     const { uid } = await provider.interactionDetails(req, res);
-    const email = String(req.body?.email ?? '').trim().toLowerCase();
+    const email = String(req.body?.email ?? '')
+      .trim()
+      .toLowerCase();
     if (!checkPassword(email, String(req.body?.password ?? ''))) {
-      return res.status(401).type('html').send(loginPage(uid, { email, error: 'That e-mail and password do not match an account.' }));
+      return res
+        .status(401)
+        .type('html')
+        .send(loginPage(uid, { email, error: 'That e-mail and password do not match an account.' }));
     }
     await provider.interactionFinished(req, res, { login: { accountId: email } }, { mergeWithLastSubmission: false });
   });
@@ -111,15 +143,29 @@ export async function startIdentityProvider(options: {
     if (missing.missingOIDCScope) grant.addOIDCScope(missing.missingOIDCScope.join(' '));
     if (missing.missingOIDCClaims) grant.addOIDCClaims(missing.missingOIDCClaims);
     const grantId = await grant.save();
-    await provider.interactionFinished(req, res, { consent: details.grantId ? {} : { grantId } }, { mergeWithLastSubmission: true });
+    await provider.interactionFinished(
+      req,
+      res,
+      { consent: details.grantId ? {} : { grantId } },
+      { mergeWithLastSubmission: true },
+    );
   });
   app.post('/interaction/:uid/abort', async (req, res) => {
-    await provider.interactionFinished(req, res, { error: 'access_denied', error_description: 'The user cancelled sign-in.' }, { mergeWithLastSubmission: false });
+    await provider.interactionFinished(
+      req,
+      res,
+      { error: 'access_denied', error_description: 'The user cancelled sign-in.' },
+      { mergeWithLastSubmission: false },
+    );
   });
   app.use(provider.callback());
 
   return {
     issuer,
-    close: () => new Promise<void>((resolve) => { server.closeAllConnections(); server.close(() => resolve()); }),
+    close: () =>
+      new Promise<void>((resolve) => {
+        server.closeAllConnections();
+        server.close(() => resolve());
+      }),
   };
 }

@@ -21,7 +21,8 @@ export function takeLock(file: string, description: string): { heldBy?: string; 
     } catch (error) {
       if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
       const holder = JSON.parse(fs.readFileSync(file, 'utf8') || '{}') as { pid?: number; description?: string };
-      if (holder.pid && alive(holder.pid)) return { heldBy: `pid ${holder.pid}, ${holder.description ?? ''}`, release: () => undefined };
+      if (holder.pid && alive(holder.pid))
+        return { heldBy: `pid ${holder.pid}, ${holder.description ?? ''}`, release: () => undefined };
       fs.rmSync(file, { force: true });
     }
   }

@@ -48,7 +48,8 @@ function prepareDataDir(dataDir: string): string {
   fs.mkdirSync(dataDir, { recursive: true });
   makeReachable(dataDir);
   const passwordFile = `${dataDir}.password`;
-  if (!fs.existsSync(passwordFile)) fs.writeFileSync(passwordFile, randomBytes(18).toString('base64url'), { mode: 0o600 });
+  if (!fs.existsSync(passwordFile))
+    fs.writeFileSync(passwordFile, randomBytes(18).toString('base64url'), { mode: 0o600 });
   const password = fs.readFileSync(passwordFile, 'utf8').trim();
   if (fs.existsSync(path.join(dataDir, 'PG_VERSION'))) return password;
 
@@ -59,8 +60,18 @@ function prepareDataDir(dataDir: string): string {
     fs.chmodSync(dataDir, 0o700);
   }
   try {
-    runPg('initdb', ['-D', dataDir, '-U', 'postgres', '-E', 'UTF8', '--locale=C.UTF-8',
-      '--auth-local=trust', '--auth-host=scram-sha-256', `--pwfile=${pwfile}`]);
+    runPg('initdb', [
+      '-D',
+      dataDir,
+      '-U',
+      'postgres',
+      '-E',
+      'UTF8',
+      '--locale=C.UTF-8',
+      '--auth-local=trust',
+      '--auth-host=scram-sha-256',
+      `--pwfile=${pwfile}`,
+    ]);
   } finally {
     fs.rmSync(pwfile, { force: true });
   }
@@ -69,7 +80,9 @@ function prepareDataDir(dataDir: string): string {
 
 function isRunning(dataDir: string): boolean {
   const bin = path.join(pgBinDir(), 'pg_ctl');
-  const [cmd, argv] = isRoot ? ['runuser', ['-u', 'postgres', '--', bin, 'status', '-D', dataDir]] : [bin, ['status', '-D', dataDir]];
+  const [cmd, argv] = isRoot
+    ? ['runuser', ['-u', 'postgres', '--', bin, 'status', '-D', dataDir]]
+    : [bin, ['status', '-D', dataDir]];
   return spawnSync(cmd, argv, { cwd: '/' }).status === 0;
 }
 
@@ -80,8 +93,18 @@ function isRunning(dataDir: string): boolean {
 export function startCluster(dataDir: string, port: number, options: { durable: boolean }): Cluster {
   const password = prepareDataDir(dataDir);
   if (isRunning(dataDir)) runPg('pg_ctl', ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
-  runPg('pg_ctl', ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-w', '-t', '60', '-o',
-    `-c listen_addresses=127.0.0.1 -p ${port} -k ${dataDir} -c fsync=${options.durable ? 'on' : 'off'}`, 'start']);
+  runPg('pg_ctl', [
+    '-D',
+    dataDir,
+    '-l',
+    path.join(dataDir, 'server.log'),
+    '-w',
+    '-t',
+    '60',
+    '-o',
+    `-c listen_addresses=127.0.0.1 -p ${port} -k ${dataDir} -c fsync=${options.durable ? 'on' : 'off'}`,
+    'start',
+  ]);
   return {
     dataDir,
     port,

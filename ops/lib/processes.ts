@@ -8,7 +8,11 @@ export interface Service {
 
 /** Starts a TypeScript entry point under tsx, prefixing its output with the service name. */
 export function startService(name: string, entry: string, env: NodeJS.ProcessEnv, cwd: string): Service {
-  const child = spawn(process.execPath, ['--import', 'tsx', entry], { cwd, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+  const child = spawn(process.execPath, ['--import', 'tsx', entry], {
+    cwd,
+    env: { ...process.env, ...env },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
   for (const stream of [child.stdout, child.stderr]) {
     readline.createInterface({ input: stream }).on('line', (line) => console.log(`[${name}] ${line}`));
   }
@@ -18,11 +22,21 @@ export function startService(name: string, entry: string, env: NodeJS.ProcessEnv
 /** SIGTERM to every service, SIGKILL to those still running after graceMs. */
 export async function stopServices(services: Service[], graceMs: number): Promise<void> {
   const running = services.filter((s) => s.child.exitCode === null && s.child.signalCode === null);
-  await Promise.all(running.map((s) => new Promise<void>((resolve) => {
-    const timer = setTimeout(() => { s.child.kill('SIGKILL'); }, graceMs);
-    s.child.once('exit', () => { clearTimeout(timer); resolve(); });
-    s.child.kill('SIGTERM');
-  })));
+  await Promise.all(
+    running.map(
+      (s) =>
+        new Promise<void>((resolve) => {
+          const timer = setTimeout(() => {
+            s.child.kill('SIGKILL');
+          }, graceMs);
+          s.child.once('exit', () => {
+            clearTimeout(timer);
+            resolve();
+          });
+          s.child.kill('SIGTERM');
+        }),
+    ),
+  );
 }
 
 /** Polls a URL until it answers 200 or the time runs out. */

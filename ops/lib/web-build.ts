@@ -12,10 +12,20 @@ function newestMtime(target: string): number {
 /** Builds web/dist when it is missing or older than the web app's sources. */
 export function ensureWebBuild(root: string, log: (line: string) => void): void {
   const builtAt = newestMtime(path.join(root, 'web/dist/index.html'));
-  const sources = ['web/src', 'web/index.html', 'web/vite.config.ts', 'web/package.json', 'api/src/contracts', 'simulator/src/events.ts'];
+  const sources = [
+    'web/src',
+    'web/index.html',
+    'web/vite.config.ts',
+    'web/package.json',
+    'api/src/contracts',
+    'simulator/src/events.ts',
+  ];
   const changedAt = Math.max(...sources.map((s) => newestMtime(path.join(root, s))));
   if (builtAt > changedAt) return;
   log('building the web app (vite build)');
-  const result = spawnSync('npm', ['run', '--silent', 'build', '-w', '@shadowloop/web'], { cwd: root, stdio: ['ignore', 'ignore', 'inherit'] });
+  const result = spawnSync('npm', ['run', '--silent', 'build', '-w', '@shadowloop/web'], {
+    cwd: root,
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
   if (result.status !== 0) throw new Error('the web app did not build; see the output above');
 }

@@ -9,7 +9,9 @@ export interface MailServer {
 }
 
 const addresses = (field: AddressObject | AddressObject[] | undefined): string[] =>
-  (Array.isArray(field) ? field : field ? [field] : []).flatMap((a) => a.value.map((v) => v.address ?? '')).filter(Boolean);
+  (Array.isArray(field) ? field : field ? [field] : [])
+    .flatMap((a) => a.value.map((v) => v.address ?? ''))
+    .filter(Boolean);
 
 /**
  * The local SMTP server: accepts every message on 127.0.0.1 and stores it in dev_mail, where
@@ -30,8 +32,14 @@ export async function startMailServer(options: { port: number; databaseUrl: stri
           const envelopeTo = session.envelope.rcptTo.map((r) => r.address);
           await pool.query(
             `INSERT INTO dev_mail (message_id, from_address, to_addresses, subject, text, html) VALUES ($1, $2, $3, $4, $5, $6)`,
-            [mail.messageId ?? null, addresses(mail.from)[0] ?? null, to.length ? to : envelopeTo,
-              mail.subject ?? '', mail.text ?? '', typeof mail.html === 'string' ? mail.html : null],
+            [
+              mail.messageId ?? null,
+              addresses(mail.from)[0] ?? null,
+              to.length ? to : envelopeTo,
+              mail.subject ?? '',
+              mail.text ?? '',
+              typeof mail.html === 'string' ? mail.html : null,
+            ],
           );
           callback();
         })

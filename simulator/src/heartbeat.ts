@@ -10,15 +10,28 @@ export function startHeartbeat(db: Knex, options: { intervalMs: number; details?
   const startedAt = new Date();
   const beat = async () => {
     await db('service_heartbeats')
-      .insert({ service: 'simulator', instance, beat_at: db.fn.now(), started_at: startedAt, details: JSON.stringify(options.details?.() ?? {}) })
+      .insert({
+        service: 'simulator',
+        instance,
+        beat_at: db.fn.now(),
+        started_at: startedAt,
+        details: JSON.stringify(options.details?.() ?? {}),
+      })
       .onConflict(['service', 'instance'])
       .merge(['beat_at', 'details']);
   };
   let failures = 0;
-  const tick = () => beat().then(() => { failures = 0; }, (error: Error) => {
-    failures += 1;
-    if (failures === 1 || failures % 10 === 0) console.error(`simulator heartbeat failed (${failures}×): ${error.message}`);
-  });
+  const tick = () =>
+    beat().then(
+      () => {
+        failures = 0;
+      },
+      (error: Error) => {
+        failures += 1;
+        if (failures === 1 || failures % 10 === 0)
+          console.error(`simulator heartbeat failed (${failures}×): ${error.message}`);
+      },
+    );
   const timer = setInterval(() => void tick(), options.intervalMs);
   return { first: tick(), instance, stop: () => clearInterval(timer) };
 }

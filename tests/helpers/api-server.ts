@@ -5,6 +5,8 @@ import { pino } from 'pino';
 import { createApp } from '../../api/src/app.js';
 import { loadConfig } from '../../api/src/config/config.js';
 import { createDb } from '../../api/src/db/knex.js';
+import { createTwinPublisher } from '../../api/src/realtime/publisher.js';
+import { createRealtime } from '../../api/src/realtime/realtime.js';
 import type { StackInfo } from './test-env.js';
 
 export interface RunningApi {
@@ -29,15 +31,18 @@ export async function startApi(stack: StackInfo, env: Record<string, string> = {
   });
   const pool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
   const db = createDb(config.DATABASE_URL, 5);
-  const app = createApp({ config, db, pool, logger: pino({ level: 'silent' }), version: 'test' });
+  const logger = pino({ level: 'silent' });
+  const publisher = createTwinPublisher();
+  const app = createApp({ config, db, pool, logger, version: 'test', publisher });
   const server = http.createServer(app);
+  const realtime = createRealtime(server, { config, db, pool, logger, publisher });
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   return {
     url,
     close: async () => {
       server.closeAllConnections();
-      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await realtime.close();
       await db.destroy();
       await pool.end();
     },

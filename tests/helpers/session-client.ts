@@ -27,7 +27,10 @@ export class SessionClient {
   }
 
   /** Signs in through the identity provider's own pages; returns the final landing URL. */
-  async signIn(email: string, password = DEMO_PASSWORD): Promise<{ landedAt: string; finalStatus: number; page?: string }> {
+  async signIn(
+    email: string,
+    password = DEMO_PASSWORD,
+  ): Promise<{ landedAt: string; finalStatus: number; page?: string }> {
     let url = `${this.baseUrl}/auth/login`;
     let init: RequestInit = {};
     let credentialsSent = false;
@@ -37,7 +40,8 @@ export class SessionClient {
       const location = response.headers.get('location');
       if (response.status >= 300 && response.status < 400 && location) {
         url = new URL(location, url).toString();
-        if (url.startsWith(this.baseUrl) && !new URL(url).pathname.startsWith('/auth/')) return { landedAt: url, finalStatus: response.status };
+        if (url.startsWith(this.baseUrl) && !new URL(url).pathname.startsWith('/auth/'))
+          return { landedAt: url, finalStatus: response.status };
         continue;
       }
       const html = await response.text();
@@ -46,7 +50,11 @@ export class SessionClient {
       if (login && !credentialsSent) {
         credentialsSent = true;
         url = new URL(login[1], url).toString();
-        init = { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ email, password }).toString() };
+        init = {
+          method: 'POST',
+          headers: { 'content-type': 'application/x-www-form-urlencoded' },
+          body: new URLSearchParams({ email, password }).toString(),
+        };
       } else if (confirm) {
         url = new URL(confirm[1], url).toString();
         init = { method: 'POST' };
@@ -58,25 +66,47 @@ export class SessionClient {
   }
 
   async csrf(): Promise<string> {
-    this.csrfToken ??= ((await this.request<{ token: string }>('GET', '/api/v1/csrf-token')).body).token;
+    this.csrfToken ??= (await this.request<{ token: string }>('GET', '/api/v1/csrf-token')).body.token;
     return this.csrfToken;
   }
 
-  async request<T = unknown>(method: string, path: string, body?: unknown, options: { csrf?: boolean } = {}): Promise<ApiResponse<T>> {
+  async request<T = unknown>(
+    method: string,
+    path: string,
+    body?: unknown,
+    options: { csrf?: boolean } = {},
+  ): Promise<ApiResponse<T>> {
     const headers: Record<string, string> = { accept: 'application/json' };
     if (body !== undefined) headers['content-type'] = 'application/json';
     if (options.csrf) headers['x-csrf-token'] = await this.csrf();
-    const response = await this.raw(`${this.baseUrl}${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) });
+    const response = await this.raw(`${this.baseUrl}${path}`, {
+      method,
+      headers,
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
     const text = await response.text();
-    return { status: response.status, headers: response.headers, body: (text && response.headers.get('content-type')?.includes('json') ? JSON.parse(text) : text) as T };
+    return {
+      status: response.status,
+      headers: response.headers,
+      body: (text && response.headers.get('content-type')?.includes('json') ? JSON.parse(text) : text) as T,
+    };
   }
 }
 
 /** Plain requests with an access token, as a script or plant bridge would make them. */
-export async function tokenRequest<T = unknown>(baseUrl: string, token: string, method: string, path: string, body?: unknown): Promise<ApiResponse<T>> {
+export async function tokenRequest<T = unknown>(
+  baseUrl: string,
+  token: string,
+  method: string,
+  path: string,
+  body?: unknown,
+): Promise<ApiResponse<T>> {
   const response = await fetch(`${baseUrl}${path}`, {
     method,
-    headers: { authorization: `Bearer ${token}`, ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
+    headers: {
+      authorization: `Bearer ${token}`,
+      ...(body === undefined ? {} : { 'content-type': 'application/json' }),
+    },
     body: body === undefined ? undefined : JSON.stringify(body),
   });
   const text = await response.text();

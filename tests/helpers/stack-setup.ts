@@ -16,7 +16,10 @@ import { NEWCOMER, type StackInfo } from './test-env.js';
  */
 export default async function setup(project: TestProject) {
   const adminUrl = process.env.SHADOWLOOP_TEST_PG_URL;
-  if (!adminUrl) throw new Error('SHADOWLOOP_TEST_PG_URL is not set: run the suites with `npm test`, which starts the test cluster.');
+  if (!adminUrl)
+    throw new Error(
+      'SHADOWLOOP_TEST_PG_URL is not set: run the suites with `npm test`, which starts the test cluster.',
+    );
   const name = `shadowloop_${project.name}_${randomBytes(4).toString('hex')}`;
   await ensureDatabase(adminUrl, name);
   const databaseUrl = withDatabase(adminUrl, name);
@@ -27,11 +30,20 @@ export default async function setup(project: TestProject) {
     port: 0,
     client: { clientId: 'shadowloop-test', clientSecret, redirectUris: ['http://127.0.0.1/auth/callback'] },
     accounts: [...DEMO_ACCOUNTS, NEWCOMER].map((a) => ({ ...a, password: DEMO_PASSWORD })),
+    // every suite signs in many times from one address; the limit itself is the provider's default
+    loginAttemptsPerMinute: 10_000,
   });
   const mail = await startMailServer({ port: 0, databaseUrl });
   const outputDir = path.resolve('test-output', project.name);
   fs.mkdirSync(outputDir, { recursive: true });
-  const stack: StackInfo = { databaseUrl, idpIssuer: idp.issuer, smtpPort: mail.port, clientId: 'shadowloop-test', clientSecret, outputDir };
+  const stack: StackInfo = {
+    databaseUrl,
+    idpIssuer: idp.issuer,
+    smtpPort: mail.port,
+    clientId: 'shadowloop-test',
+    clientSecret,
+    outputDir,
+  };
   const api = project.name === 'e2e' ? await startApi(stack) : undefined;
   project.provide('stack', { ...stack, appUrl: api?.url });
 

@@ -25,7 +25,12 @@ afterAll(async () => {
 
 describe('access tokens', () => {
   it('shows the secret once, stores only its SHA-256 hash and records its use', async () => {
-    const created = await operator.request<{ id: string; token: string; prefix: string }>('POST', '/api/v1/access-tokens', { label: 'trend export' }, { csrf: true });
+    const created = await operator.request<{ id: string; token: string; prefix: string }>(
+      'POST',
+      '/api/v1/access-tokens',
+      { label: 'trend export' },
+      { csrf: true },
+    );
     expect(created.status).toBe(201);
     expect(created.body.token.startsWith(created.body.prefix)).toBe(true);
 
@@ -36,24 +41,41 @@ describe('access tokens', () => {
 
     const me = await tokenRequest<{ email: string }>(api.url, created.body.token, 'GET', '/api/v1/me');
     expect(me.body.email).toBe('operator@quillmere.example');
-    const listed = await operator.request<{ id: string; lastUsedAt: string | null; token?: string }[]>('GET', '/api/v1/access-tokens');
+    const listed = await operator.request<{ id: string; lastUsedAt: string | null; token?: string }[]>(
+      'GET',
+      '/api/v1/access-tokens',
+    );
     const mine = listed.body.find((t) => t.id === created.body.id);
     expect(mine?.lastUsedAt).not.toBeNull();
     expect(mine?.token).toBeUndefined();
   });
 
   it('acts with the owner roles only', async () => {
-    const created = await operator.request<{ token: string }>('POST', '/api/v1/access-tokens', { label: 'limited' }, { csrf: true });
+    const created = await operator.request<{ token: string }>(
+      'POST',
+      '/api/v1/access-tokens',
+      { label: 'limited' },
+      { csrf: true },
+    );
     const users = await tokenRequest(api.url, created.body.token, 'GET', '/api/v1/users');
     expect(users.status).toBe(403);
   });
 
   it('stops working once revoked, and another user cannot revoke it', async () => {
-    const created = await operator.request<{ id: string; token: string }>('POST', '/api/v1/access-tokens', { label: 'to revoke' }, { csrf: true });
+    const created = await operator.request<{ id: string; token: string }>(
+      'POST',
+      '/api/v1/access-tokens',
+      { label: 'to revoke' },
+      { csrf: true },
+    );
     const engineer = new SessionClient(api.url);
     await engineer.signIn('engineer@quillmere.example');
-    expect((await engineer.request('DELETE', `/api/v1/access-tokens/${created.body.id}`, undefined, { csrf: true })).status).toBe(403);
-    expect((await operator.request('DELETE', `/api/v1/access-tokens/${created.body.id}`, undefined, { csrf: true })).status).toBe(204);
+    expect(
+      (await engineer.request('DELETE', `/api/v1/access-tokens/${created.body.id}`, undefined, { csrf: true })).status,
+    ).toBe(403);
+    expect(
+      (await operator.request('DELETE', `/api/v1/access-tokens/${created.body.id}`, undefined, { csrf: true })).status,
+    ).toBe(204);
     const after = await tokenRequest<{ error: { code: string } }>(api.url, created.body.token, 'GET', '/api/v1/me');
     expect(after.status).toBe(401);
     expect(after.body.error.code).toBe('invalid_token');
@@ -67,15 +89,27 @@ describe('access tokens', () => {
   });
 
   it('issues a working token from the admin command, printing only the token', () => {
-    const out = execFileSync('npm', ['run', '--silent', 'admin', '--', 'issue-token', '--email', 'engineer@quillmere.example', '--label', 'cli'], {
-      env: { ...process.env, DATABASE_URL: stack.databaseUrl }, encoding: 'utf8',
-    });
+    const out = execFileSync(
+      'npm',
+      ['run', '--silent', 'admin', '--', 'issue-token', '--email', 'engineer@quillmere.example', '--label', 'cli'],
+      {
+        env: { ...process.env, DATABASE_URL: stack.databaseUrl },
+        encoding: 'utf8',
+      },
+    );
     expect(out).toMatch(/^slt_[\w-]{43}\n$/);
-    return tokenRequest<{ email: string }>(api.url, out.trim(), 'GET', '/api/v1/me').then((me) => expect(me.body.email).toBe('engineer@quillmere.example'));
+    return tokenRequest<{ email: string }>(api.url, out.trim(), 'GET', '/api/v1/me').then((me) =>
+      expect(me.body.email).toBe('engineer@quillmere.example'),
+    );
   });
 
   it('rejects a label that is empty, naming the field', async () => {
-    const response = await operator.request<{ error: { code: string; message: string } }>('POST', '/api/v1/access-tokens', { label: '' }, { csrf: true });
+    const response = await operator.request<{ error: { code: string; message: string } }>(
+      'POST',
+      '/api/v1/access-tokens',
+      { label: '' },
+      { csrf: true },
+    );
     expect(response.status).toBe(400);
     expect(response.body.error.message).toContain('body.label');
   });

@@ -10,18 +10,24 @@ beforeAll(async () => {
   engineer = new SessionClient(api.url);
   await engineer.signIn('engineer@quillmere.example');
 });
-afterAll(async () => { await api.close(); });
+afterAll(async () => {
+  await api.close();
+});
 
 describe('CSRF protection of cookie-authenticated changes', () => {
   it('rejects a state-changing request without the token', async () => {
-    const response = await engineer.request<{ error: { code: string } }>('POST', '/api/v1/access-tokens', { label: 'no csrf' });
+    const response = await engineer.request<{ error: { code: string } }>('POST', '/api/v1/access-tokens', {
+      label: 'no csrf',
+    });
     expect(response.status).toBe(403);
     expect(response.body.error.code).toBe('csrf_invalid');
   });
 
   it('rejects a forged token', async () => {
     const response = await engineer.raw(`${api.url}/api/v1/access-tokens`, {
-      method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': 'forged' }, body: JSON.stringify({ label: 'forged' }),
+      method: 'POST',
+      headers: { 'content-type': 'application/json', 'x-csrf-token': 'forged' },
+      body: JSON.stringify({ label: 'forged' }),
     });
     expect(response.status).toBe(403);
   });
@@ -32,8 +38,15 @@ describe('CSRF protection of cookie-authenticated changes', () => {
   });
 
   it('does not ask bearer-token scripts for a CSRF token', async () => {
-    const created = await engineer.request<{ token: string }>('POST', '/api/v1/access-tokens', { label: 'script' }, { csrf: true });
-    const response = await tokenRequest(api.url, created.body.token, 'POST', '/api/v1/access-tokens', { label: 'made by a script' });
+    const created = await engineer.request<{ token: string }>(
+      'POST',
+      '/api/v1/access-tokens',
+      { label: 'script' },
+      { csrf: true },
+    );
+    const response = await tokenRequest(api.url, created.body.token, 'POST', '/api/v1/access-tokens', {
+      label: 'made by a script',
+    });
     expect(response.status).toBe(201);
   });
 });

@@ -9,7 +9,9 @@ let api: RunningApi;
 const db = new pg.Pool({ connectionString: stack.databaseUrl, max: 2 });
 type Health = { status: string; checks: Record<string, { ok: boolean; detail?: string }> };
 
-beforeAll(async () => { api = await startApi(stack); });
+beforeAll(async () => {
+  api = await startApi(stack);
+});
 afterAll(async () => {
   await api.close();
   await db.end();
@@ -29,7 +31,9 @@ describe('health', () => {
   });
 
   it('is ok once the simulator beats', async () => {
-    await db.query("INSERT INTO service_heartbeats (service, instance, beat_at, started_at) VALUES ('simulator', 'test', now(), now())");
+    await db.query(
+      "INSERT INTO service_heartbeats (service, instance, beat_at, started_at) VALUES ('simulator', 'test', now(), now())",
+    );
     const body = (await (await fetch(`${api.url}/api/health`)).json()) as Health;
     expect(body.status).toBe('ok');
   });
@@ -48,8 +52,18 @@ describe('health', () => {
 
 describe('development mailbox', () => {
   it('shows admins what the local mail server captured', async () => {
-    const transport = nodemailer.createTransport({ host: '127.0.0.1', port: stack.smtpPort, secure: false, ignoreTLS: true });
-    await transport.sendMail({ from: 'shadowloop@quillmere.example', to: 'oncall@quillmere.example', subject: 'Mailbox check', text: 'captured' });
+    const transport = nodemailer.createTransport({
+      host: '127.0.0.1',
+      port: stack.smtpPort,
+      secure: false,
+      ignoreTLS: true,
+    });
+    await transport.sendMail({
+      from: 'shadowloop@quillmere.example',
+      to: 'oncall@quillmere.example',
+      subject: 'Mailbox check',
+      text: 'captured',
+    });
     const admin = new SessionClient(api.url);
     await admin.signIn('admin@quillmere.example');
     const mail = await admin.request<{ to: string[]; subject: string; text: string }[]>('GET', '/api/v1/dev/mail');

@@ -6,8 +6,12 @@ import { NEWCOMER } from '../helpers/test-env.js';
 
 const stack = inject('stack');
 let api: RunningApi;
-beforeAll(async () => { api = await startApi(stack); });
-afterAll(async () => { await api.close(); });
+beforeAll(async () => {
+  api = await startApi(stack);
+});
+afterAll(async () => {
+  await api.close();
+});
 
 describe('sign-in through the identity provider (browserless)', () => {
   it.each(DEMO_ACCOUNTS)('$email signs in and /api/v1/me shows the demo roles', async (account) => {

@@ -18,7 +18,12 @@ const safeReturnPath = (value: unknown): string | undefined =>
   typeof value === 'string' && /^\/(?!\/)[\w\-./?=&%]*$/.test(value) ? value : undefined;
 
 /** Sign-in through the identity provider, its callback, and sign-out. */
-export function createAuthRouter(deps: { config: Config; db: Db; passport: ReturnType<typeof createPassport>; csrfValid: CsrfCheck }) {
+export function createAuthRouter(deps: {
+  config: Config;
+  db: Db;
+  passport: ReturnType<typeof createPassport>;
+  csrfValid: CsrfCheck;
+}) {
   const { config, db, passport, csrfValid } = deps;
   const router = Router();
   const signInLimit = rateLimit({
@@ -26,7 +31,10 @@ export function createAuthRouter(deps: { config: Config; db: Db; passport: Retur
     limit: config.SIGN_IN_RATE_LIMIT_PER_MINUTE,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many sign-in attempts from this address; wait a minute and try again.')),
+    handler: (_req, _res, next) =>
+      next(
+        new AppError(429, 'rate_limited', 'Too many sign-in attempts from this address; wait a minute and try again.'),
+      ),
   });
 
   router.get('/auth/login', signInLimit, (req, res, next) => {
@@ -34,13 +42,16 @@ export function createAuthRouter(deps: { config: Config; db: Db; passport: Retur
     passport.authenticate('oidc')(req, res, next);
   });
 
-  router.get('/auth/callback', signInLimit,
+  router.get(
+    '/auth/callback',
+    signInLimit,
     passport.authenticate('oidc', { failureRedirect: '/signin?error=sign-in-failed', keepSessionInfo: true }),
     (req, res) => {
       const target = req.session.returnTo ?? '/';
       delete req.session.returnTo;
       res.redirect(target);
-    });
+    },
+  );
 
   router.post('/auth/logout', async (req, res) => {
     const user = req.user;

@@ -25,6 +25,11 @@ const ConfigSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SIGN_IN_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(30),
   SIMULATOR_HEARTBEAT_MAX_AGE_S: z.coerce.number().positive().default(30),
+  INGEST_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(60_000),
+  INGEST_MAX_BODY_MB: z.coerce.number().positive().max(256).default(16),
+  INGEST_FUTURE_TOLERANCE_S: z.coerce.number().min(0).default(60),
+  INGEST_MAX_AGE_DAYS: z.coerce.number().positive().default(30),
+  IMPORT_MAX_FILE_MB: z.coerce.number().positive().max(4096).default(200),
 });
 
 export type Config = Omit<z.infer<typeof ConfigSchema>, 'PUBLIC_URL'> & { PUBLIC_URL: string };

@@ -1,5 +1,7 @@
 import { z } from 'zod';
 
+export * from './model-tools.js';
+
 /**
  * Loops and model versions (the registry). Matrices arrive loosely typed on purpose: the engine's
  * validateModel reports every problem with its place, which a schema would cut short.
@@ -24,20 +26,39 @@ export type Area = z.infer<typeof AreaSchema>;
 export const TRACKING_STATUSES = ['in_step', 'drifting', 'diverged', 'stale', 'no_twin'] as const;
 export const TrackingStatusSchema = z.enum(TRACKING_STATUSES);
 
-export const CreateLoopBodySchema = z.object({
-  tag: z.string().trim().max(40).regex(TAG_PATTERN, 'use capitals, digits and single - _ . separators, e.g. AER-DO-101'),
+const LOOP_FIELDS = {
+  tag: z
+    .string()
+    .trim()
+    .max(40)
+    .regex(TAG_PATTERN, 'use capitals, digits and single - _ . separators, e.g. AER-DO-101'),
   name: z.string().trim().min(1).max(120),
   area: z.string().min(1),
-  description: z.string().max(2000).default(''),
+  description: z.string().max(2000),
   samplePeriodS: z.number().positive().max(86_400),
   inputs: z.array(SignalSchema).min(1).max(50),
   states: z.array(SignalSchema).min(1).max(200),
   outputs: z.array(SignalSchema).min(1).max(50),
-  operatingPoint: OperatingPointSchema.default({}),
-  timeZone: z.string().min(1).default('UTC'),
+  operatingPoint: OperatingPointSchema,
+  /** An IANA time zone of the plant, e.g. Europe/London. */
+  timeZone: z.string().min(1).max(64),
+};
+
+export const CreateLoopBodySchema = z.object({
+  ...LOOP_FIELDS,
+  description: LOOP_FIELDS.description.default(''),
+  operatingPoint: LOOP_FIELDS.operatingPoint.default({}),
+  timeZone: LOOP_FIELDS.timeZone.default('UTC'),
 });
 export type CreateLoopBody = z.input<typeof CreateLoopBodySchema>;
-export const UpdateLoopBodySchema = CreateLoopBodySchema.partial();
+/** Only the fields sent change (no defaults here, so a PATCH never resets what it does not name). */
+export const UpdateLoopBodySchema = z.object(LOOP_FIELDS).partial();
+export type UpdateLoopBody = z.input<typeof UpdateLoopBodySchema>;
+
+export const LoopListQuerySchema = z.object({
+  area: z.string().max(40).optional(),
+  status: TrackingStatusSchema.optional(),
+});
 
 export const LoopSchema = z.object({
   id: z.uuid(),
@@ -53,6 +74,9 @@ export const LoopSchema = z.object({
   operatingPoint: OperatingPointSchema,
   timeZone: z.string(),
   status: TrackingStatusSchema,
+  /** The newest reading's time, and max |r_i| / band_i of its residual (null while no band is known). */
+  lastReadingAt: z.string().nullable(),
+  worstBandFraction: z.number().nullable(),
   activeVersionId: z.uuid().nullable(),
   activeVersionNumber: z.number().int().nullable(),
   draftCount: z.number().int(),
@@ -101,7 +125,9 @@ export const AnalysisBodySchema = z.object({
 export const SubmitBodySchema = z.object({ justification: z.string().trim().max(4000).optional() });
 export const ApproveBodySchema = z.object({ note: z.string().trim().max(4000).optional() });
 export const RejectBodySchema = z.object({ reason: z.string().trim().min(1, 'give the author a reason').max(4000) });
-export const ActivateBodySchema = z.object({ acknowledgeCautions: z.literal(true, 'confirm that you have read the cautions') });
+export const ActivateBodySchema = z.object({
+  acknowledgeCautions: z.literal(true, 'confirm that you have read the cautions'),
+});
 export const RetireBodySchema = z.object({ note: z.string().trim().max(4000).optional() });
 
 const Person = z.object({ email: z.string(), name: z.string() }).nullable();
@@ -115,7 +141,9 @@ export const ModelVersionSchema = z.object({
   B: z.array(z.array(z.number())),
   C: z.array(z.array(z.number())).nullable(),
   D: z.array(z.array(z.number())).nullable(),
-  continuous: z.object({ Ac: z.array(z.array(z.number())), Bc: z.array(z.array(z.number())), samplePeriodS: z.number() }).nullable(),
+  continuous: z
+    .object({ Ac: z.array(z.array(z.number())), Bc: z.array(z.array(z.number())), samplePeriodS: z.number() })
+    .nullable(),
   correction: z.object({
     mode: z.enum(CORRECTION_MODES),
     Q: z.array(z.array(z.number())).nullable(),

@@ -15,7 +15,10 @@ export const MeSchema = z.object({ id: z.uuid(), email: z.email(), name: z.strin
 export type Me = z.infer<typeof MeSchema>;
 
 export const SetRolesBodySchema = z.object({
-  roles: z.array(RoleSchema).max(4).refine((r) => new Set(r).size === r.length, 'roles must not repeat'),
+  roles: z
+    .array(RoleSchema)
+    .max(4)
+    .refine((r) => new Set(r).size === r.length, 'roles must not repeat'),
 });
 
 export const AccessTokenSchema = z.object({

@@ -19,7 +19,12 @@ function toAppError(error: unknown): AppError {
   const status = e.status ?? e.statusCode;
   if (e.type === 'entity.too.large') return new AppError(413, 'too_large', 'The request body is too large.');
   if (e.type === 'entity.parse.failed') return new AppError(400, 'invalid_json', 'The request body is not valid JSON.');
-  if (e.code === 'EBADCSRFTOKEN') return new AppError(403, 'csrf_invalid', 'Missing or invalid CSRF token: send the x-csrf-token header.');
+  if (e.code === 'EBADCSRFTOKEN')
+    return new AppError(403, 'csrf_invalid', 'Missing or invalid CSRF token: send the x-csrf-token header.');
   if (status && status >= 400 && status < 500) return new AppError(status, 'bad_request', e.message ?? 'Bad request.');
-  return new AppError(500, 'internal', 'Something went wrong on the server. The error is logged; try again or tell an administrator.');
+  return new AppError(
+    500,
+    'internal',
+    'Something went wrong on the server. The error is logged; try again or tell an administrator.',
+  );
 }

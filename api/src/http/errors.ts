@@ -12,6 +12,8 @@ export class AppError extends Error {
 
 export const notFound = (what: string) => new AppError(404, 'not_found', `${what} was not found.`);
 export const conflict = (message: string, details?: unknown) => new AppError(409, 'conflict', message, details);
-export const badRequest = (message: string, details?: unknown) => new AppError(400, 'validation_failed', message, details);
-export const unauthenticated = () => new AppError(401, 'unauthenticated', 'Sign in first: this needs a signed-in user or an access token.');
+export const badRequest = (message: string, details?: unknown) =>
+  new AppError(400, 'validation_failed', message, details);
+export const unauthenticated = () =>
+  new AppError(401, 'unauthenticated', 'Sign in first: this needs a signed-in user or an access token.');
 export const forbidden = (message: string) => new AppError(403, 'forbidden', message);

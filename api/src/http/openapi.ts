@@ -8,24 +8,39 @@ const jsonSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { io: 'input', 
 /** The OpenAPI 3.1 document, generated from the same declarations the router enforces. */
 export function buildOpenApi(routes: RouteTable, version: string) {
   const paths: Record<string, Record<string, unknown>> = {};
-  const errorResponse = { description: 'Error', content: { 'application/json': { schema: jsonSchema(ErrorBodySchema) } } };
+  const errorResponse = {
+    description: 'Error',
+    content: { 'application/json': { schema: jsonSchema(ErrorBodySchema) } },
+  };
   for (const spec of routes.specs()) {
     const path = toOpenApiPath(spec.path);
-    const parameters = [...spec.path.matchAll(/:(\w+)/g)].map((m) => ({ name: m[1], in: 'path', required: true, schema: { type: 'string' } }));
+    const parameters = [...spec.path.matchAll(/:(\w+)/g)].map((m) => ({
+      name: m[1],
+      in: 'path',
+      required: true,
+      schema: { type: 'string' },
+    }));
     if (spec.query) {
       const props = (jsonSchema(spec.query) as { properties?: Record<string, unknown> }).properties ?? {};
-      for (const [name, schema] of Object.entries(props)) parameters.push({ name, in: 'query', required: false, schema: schema as { type: string } });
+      for (const [name, schema] of Object.entries(props))
+        parameters.push({ name, in: 'query', required: false, schema: schema as { type: string } });
     }
     paths[path] ??= {};
     paths[path][spec.method] = {
       summary: spec.summary,
       tags: [spec.tag],
       'x-roles': spec.access,
+      ...(spec.ingest ? { 'x-ingest': true } : {}),
       security: spec.access === 'public' ? [] : [{ session: [] }, { bearer: [] }],
       parameters,
-      ...(spec.body ? { requestBody: { required: true, content: { 'application/json': { schema: jsonSchema(spec.body) } } } } : {}),
+      ...(spec.body
+        ? { requestBody: { required: true, content: { 'application/json': { schema: jsonSchema(spec.body) } } } }
+        : {}),
       responses: {
-        [String(spec.status ?? 200)]: { description: 'Success', ...(spec.response ? { content: { 'application/json': { schema: jsonSchema(spec.response) } } } : {}) },
+        [String(spec.status ?? 200)]: {
+          description: 'Success',
+          ...(spec.response ? { content: { 'application/json': { schema: jsonSchema(spec.response) } } } : {}),
+        },
         ...(spec.access === 'public' ? {} : { 401: errorResponse, 403: errorResponse }),
         ...(spec.body ? { 400: errorResponse } : {}),
       },
@@ -33,11 +48,24 @@ export function buildOpenApi(routes: RouteTable, version: string) {
   }
   return {
     openapi: '3.1.0',
-    info: { title: 'Shadowloop API', version, description: 'Live state-space twins beside plant control loops. Advisory monitoring only.' },
+    info: {
+      title: 'Shadowloop API',
+      version,
+      description: 'Live state-space twins beside plant control loops. Advisory monitoring only.',
+    },
     components: {
       securitySchemes: {
-        session: { type: 'apiKey', in: 'cookie', name: 'shadowloop.sid', description: 'Browser session; state-changing requests also need the x-csrf-token header.' },
-        bearer: { type: 'http', scheme: 'bearer', description: 'An access token created in the app or with npm run admin -- issue-token.' },
+        session: {
+          type: 'apiKey',
+          in: 'cookie',
+          name: 'shadowloop.sid',
+          description: 'Browser session; state-changing requests also need the x-csrf-token header.',
+        },
+        bearer: {
+          type: 'http',
+          scheme: 'bearer',
+          description: 'An access token created in the app or with npm run admin -- issue-token.',
+        },
       },
     },
     paths,

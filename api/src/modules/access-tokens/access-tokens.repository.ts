@@ -2,14 +2,25 @@ import type { Db } from '../../db/knex.js';
 import { hashToken } from './token-secret.js';
 
 type Raw = {
-  id: string; label: string; prefix: string; created_at: Date; last_used_at: Date | null; revoked_at: Date | null;
-  user_id: string; user_email?: string;
+  id: string;
+  label: string;
+  prefix: string;
+  created_at: Date;
+  last_used_at: Date | null;
+  revoked_at: Date | null;
+  user_id: string;
+  user_email?: string;
 };
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
 export const toAccessToken = (r: Raw, withUser = false) => ({
-  id: r.id, label: r.label, prefix: r.prefix, createdAt: r.created_at.toISOString(),
-  lastUsedAt: iso(r.last_used_at), revokedAt: iso(r.revoked_at), ...(withUser ? { userEmail: r.user_email } : {}),
+  id: r.id,
+  label: r.label,
+  prefix: r.prefix,
+  createdAt: r.created_at.toISOString(),
+  lastUsedAt: iso(r.last_used_at),
+  revokedAt: iso(r.revoked_at),
+  ...(withUser ? { userEmail: r.user_email } : {}),
 });
 
 export async function insertToken(db: Db, row: { userId: string; label: string; prefix: string; hash: string }) {
@@ -20,7 +31,10 @@ export async function insertToken(db: Db, row: { userId: string; label: string; 
 }
 
 export async function listTokens(db: Db, userId: string | null) {
-  const q = db('access_tokens as t').join('users as u', 'u.id', 't.user_id').select('t.*', 'u.email as user_email').orderBy('t.created_at', 'desc');
+  const q = db('access_tokens as t')
+    .join('users as u', 'u.id', 't.user_id')
+    .select('t.*', 'u.email as user_email')
+    .orderBy('t.created_at', 'desc');
   if (userId) q.where('t.user_id', userId);
   return (await q) as Raw[];
 }

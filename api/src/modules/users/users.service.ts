@@ -22,8 +22,13 @@ export async function setUserRoles(db: Db, actor: SignedInUser, userId: string, 
     const before = await findUserById(trx, userId);
     if (!before) throw notFound(`User ${userId}`);
     await replaceRoles(trx, userId, roles);
-    await recordAudit(trx, { actor, action: 'user.roles_changed', targetType: 'user', targetId: userId,
-      details: { email: before.email, before: before.roles, after: [...roles].sort() } });
+    await recordAudit(trx, {
+      actor,
+      action: 'user.roles_changed',
+      targetType: 'user',
+      targetId: userId,
+      details: { email: before.email, before: before.roles, after: [...roles].sort() },
+    });
   });
   return findUserById(db, userId);
 }

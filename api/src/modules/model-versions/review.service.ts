@@ -1,0 +1,72 @@
+import type { SignedInUser } from '../../auth/user.js';
+import type { Db } from '../../db/knex.js';
+import { AppError, forbidden } from '../../http/errors.js';
+import { findActiveVersionId, updateVersion } from './model-versions.repository.js';
+import { notifyActiveChanged } from './activation.service.js';
+import { changeVersion, describeVersion, requireSecondEngineer, requireStatus } from './version-change.js';
+
+/** draft → in_review, by its author; an unstable or marginal model needs a written justification. */
+export function submitVersion(db: Db, actor: SignedInUser, id: string, justification: string | undefined) {
+  return changeVersion(db, actor, id, 'submitted', async (trx, version) => {
+    requireStatus(version, ['draft'], 'submitted');
+    if (version.authorId !== actor.id)
+      throw forbidden(`Only the author of ${describeVersion(version).toLowerCase()} can submit it for review.`);
+    const stability = version.analysis.stability;
+    if (stability !== 'stable' && !justification) {
+      throw new AppError(
+        422,
+        'justification_required',
+        `${describeVersion(version)} is ${stability} (spectral radius ` +
+          `${version.analysis.spectralRadius.toPrecision(6)}): say in a justification why the twin may run it.`,
+      );
+    }
+    await updateVersion(trx, id, {
+      status: 'in_review',
+      submitted_at: trx.fn.now(),
+      justification: justification || null,
+    });
+    return { stability, justification: justification || undefined };
+  });
+}
+
+/** in_review → approved by a second engineer; remembers which version was active at the time. */
+export function approveVersion(db: Db, actor: SignedInUser, id: string, note: string | undefined) {
+  return changeVersion(db, actor, id, 'approved', async (trx, version) => {
+    requireStatus(version, ['in_review'], 'approved');
+    requireSecondEngineer(version, actor, 'approve');
+    const activeId = await findActiveVersionId(trx, version.loopId);
+    await updateVersion(trx, id, {
+      status: 'approved',
+      reviewer_id: actor.id,
+      reviewed_at: trx.fn.now(),
+      review_note: note || null,
+      approved_against_version_id: activeId,
+    });
+    return { note: note || undefined };
+  });
+}
+
+/** in_review → rejected by a second engineer, with the reason the author reads. */
+export function rejectVersion(db: Db, actor: SignedInUser, id: string, reason: string) {
+  return changeVersion(db, actor, id, 'rejected', async (trx, version) => {
+    requireStatus(version, ['in_review'], 'rejected');
+    requireSecondEngineer(version, actor, 'reject');
+    await updateVersion(trx, id, {
+      status: 'rejected',
+      reviewer_id: actor.id,
+      reviewed_at: trx.fn.now(),
+      reject_reason: reason,
+    });
+    return { reason };
+  });
+}
+
+/** active or approved → retired; retiring the active version leaves the loop without a twin. */
+export function retireVersion(db: Db, actor: SignedInUser, id: string, note: string | undefined) {
+  return changeVersion(db, actor, id, 'retired', async (trx, version) => {
+    requireStatus(version, ['active', 'approved'], 'retired');
+    await updateVersion(trx, id, { status: 'retired', retired_at: trx.fn.now() });
+    if (version.status === 'active') await notifyActiveChanged(trx, version.loopId, null);
+    return { previousStatus: version.status, note: note || undefined };
+  });
+}

@@ -1,0 +1,84 @@
+import type { IngestPrincipal } from '../../auth/ingest-principal.js';
+import type { IngestResult } from '../../contracts/ingest.js';
+import type { Db } from '../../db/knex.js';
+import type { TwinPublisher } from '../../realtime/publisher.js';
+import { forgetTrendMinutes } from '../series/trend-minutes.js';
+import { foldReadings } from '../tracking/tracking-fold.js';
+import { lockTracking, saveTracking } from '../tracking/tracking.repository.js';
+import { requireRecentLiveLoop, type LiveLoop } from './live-loop.js';
+import type { PartitionKeeper } from './partitions.js';
+import { checkReading, type CheckedReading, type ReadingRules } from './reading-checks.js';
+import { insertScoredReadings } from './readings.repository.js';
+import { announceBatch } from './announce.js';
+import { utcDay } from './sample-grid.js';
+
+export interface IngestDeps {
+  db: Db;
+  partitions: PartitionKeeper;
+  publisher: TwinPublisher;
+  futureToleranceS: number;
+  maxAgeDays: number;
+}
+
+function rulesFor(target: LiveLoop, deps: IngestDeps, nowMs: number): ReadingRules {
+  return {
+    inputs: target.inputs,
+    outputs: target.outputs,
+    samplePeriodS: target.samplePeriodS,
+    latestMs: nowMs + deps.futureToleranceS * 1000,
+    earliestMs: nowMs - deps.maxAgeDays * 86_400_000,
+    tooOldAdvice: `more than ${deps.maxAgeDays} days ago; upload history as a CSV file (POST …/readings/import)`,
+  };
+}
+
+/** Good readings (first of each slot), duplicates within the batch, and the rejected ones with reasons. */
+function sortBatch(items: unknown[], rules: ReadingRules) {
+  const good: CheckedReading[] = [];
+  const rejected: IngestResult['rejected'] = [];
+  const slots = new Set<number>();
+  let duplicates = 0;
+  items.forEach((item, index) => {
+    const check = checkReading(item, rules);
+    if (!check.ok) rejected.push({ index, reason: check.reason });
+    else if (slots.has(check.reading.k)) duplicates += 1;
+    else {
+      slots.add(check.reading.k);
+      good.push(check.reading);
+    }
+  });
+  return { good, rejected, duplicates };
+}
+
+/**
+ * Stores a batch of readings: each is checked and slotted, the good ones are inserted once per slot,
+ * scored against the twin's predictions and folded into the loop's tracking, all in one
+ * transaction; then the newest sample (and a status change) goes out to watching browsers.
+ */
+export async function ingestReadings(
+  deps: IngestDeps,
+  loopId: string,
+  items: unknown[],
+  principal?: IngestPrincipal,
+): Promise<IngestResult> {
+  const target = await requireRecentLiveLoop(deps.db, loopId);
+  const nowMs = Date.now();
+  const { good, rejected, duplicates } = sortBatch(items, rulesFor(target, deps, nowMs));
+  if (!good.length) return { accepted: 0, duplicates, rejected };
+  await deps.partitions.ensureDays(good.map((r) => utcDay(r.slotMs)));
+  const outcome = await deps.db.transaction(async (trx) => {
+    const before = await lockTracking(trx, target.id);
+    const stored = await insertScoredReadings(
+      trx,
+      { loopId: target.id, inputs: target.inputs, outputs: target.outputs, sourceId: principal?.sourceId ?? null },
+      good,
+    );
+    const after = foldReadings(before, target, stored);
+    if (stored.length) {
+      await saveTracking(trx, target.id, after);
+      await forgetTrendMinutes(trx, target, stored[0].slotMs, stored[stored.length - 1].slotMs);
+    }
+    return { before, after, stored };
+  });
+  if (outcome.stored.length) announceBatch(deps.publisher, target, outcome, nowMs);
+  return { accepted: outcome.stored.length, duplicates: duplicates + good.length - outcome.stored.length, rejected };
+}

@@ -1,0 +1,61 @@
+import type { Knex } from 'knex';
+import type { TrackingStatus } from '@shadowloop/simulator/events';
+import type { Db } from '../../db/knex.js';
+import type { TrackingState } from './tracking-fold.js';
+
+type Raw = {
+  status: TrackingStatus;
+  last_reading_at: Date | null;
+  last_slot_at: Date | null;
+  residual_count: string;
+  residual_mean: number[] | null;
+  residual_m2: number[] | null;
+  last_residual: number[] | null;
+  worst_band_fraction: number | null;
+};
+
+const ms = (d: Date | null) => (d ? d.getTime() : null);
+const date = (v: number | null) => (v === null ? null : new Date(v));
+
+const toState = (r: Raw): TrackingState => ({
+  status: r.status,
+  lastReadingMs: ms(r.last_reading_at),
+  lastSlotMs: ms(r.last_slot_at),
+  stats: { count: Number(r.residual_count), mean: r.residual_mean ?? [], m2: r.residual_m2 ?? [] },
+  lastResidual: r.last_residual,
+  worstBandFraction: r.worst_band_fraction,
+});
+
+export async function readTracking(db: Db, loopId: string): Promise<TrackingState | undefined> {
+  const row = (await db('loop_tracking').where({ loop_id: loopId }).first()) as Raw | undefined;
+  return row && toState(row);
+}
+
+/**
+ * Creates the loop's tracking row when missing and locks it until the transaction ends, so that
+ * batches for one loop fold their residuals one after the other.
+ */
+export async function lockTracking(trx: Knex.Transaction, loopId: string): Promise<TrackingState> {
+  const { rows } = (await trx.raw(
+    `INSERT INTO loop_tracking (loop_id) VALUES (?)
+    ON CONFLICT (loop_id) DO UPDATE SET loop_id = EXCLUDED.loop_id RETURNING *`,
+    [loopId],
+  )) as { rows: Raw[] };
+  return toState(rows[0]);
+}
+
+export async function saveTracking(trx: Db, loopId: string, s: TrackingState): Promise<void> {
+  await trx('loop_tracking')
+    .where({ loop_id: loopId })
+    .update({
+      status: s.status,
+      last_reading_at: date(s.lastReadingMs),
+      last_slot_at: date(s.lastSlotMs),
+      residual_count: s.stats.count,
+      residual_mean: s.stats.mean,
+      residual_m2: s.stats.m2,
+      last_residual: s.lastResidual,
+      worst_band_fraction: s.worstBandFraction,
+      updated_at: trx.fn.now(),
+    });
+}

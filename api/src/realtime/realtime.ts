@@ -1,0 +1,50 @@
+import type http from 'node:http';
+import { createAdapter } from '@socket.io/postgres-adapter';
+import pg from 'pg';
+import type { Logger } from 'pino';
+import { Server } from 'socket.io';
+import type { Config } from '../config/config.js';
+import type { Db } from '../db/knex.js';
+import type { createTwinPublisher } from './publisher.js';
+import type { RealtimeServer } from './realtime-types.js';
+import { authenticateSockets } from './socket-auth.js';
+import { registerWatchHandlers } from './watch-handlers.js';
+
+export interface RealtimeDeps {
+  config: Config;
+  db: Db;
+  /** The session store's pool (the same sessions as the HTTP api). */
+  pool: pg.Pool;
+  logger: Logger;
+  publisher: ReturnType<typeof createTwinPublisher>;
+}
+
+/**
+ * socket.io on the api's HTTP server, with the PostgreSQL adapter so that every api process and
+ * the simulator's headless server share rooms and broadcasts. The adapter holds one connection
+ * for LISTEN on its own small pool. close() disconnects the sockets, closes the adapter and the
+ * HTTP server (io.close does all three), then ends the adapter's pool.
+ */
+export function createRealtime(server: http.Server, deps: RealtimeDeps) {
+  const adapterPool = new pg.Pool({ connectionString: deps.config.DATABASE_URL, max: 3 });
+  adapterPool.on('error', (error) => deps.logger.warn({ err: error }, 'realtime adapter connection failed'));
+  const io: RealtimeServer = new Server(server, {
+    serveClient: false,
+    adapter: createAdapter(adapterPool, {
+      errorHandler: (error: Error) => deps.logger.warn({ err: error }, 'realtime adapter error'),
+    }),
+  });
+  authenticateSockets(io, deps);
+  io.on('connection', (socket) => registerWatchHandlers(socket, deps.db));
+  deps.publisher.attach(io);
+  return {
+    io,
+    async close(): Promise<void> {
+      deps.publisher.attach(null);
+      await io.close();
+      await adapterPool.end();
+    },
+  };
+}
+
+export type Realtime = ReturnType<typeof createRealtime>;

@@ -1,0 +1,46 @@
+import http from 'node:http';
+
+/** POSTs JSON over a small pool of kept-alive loopback connections; resolves with status and body. */
+export function createPoster(baseUrl: string, token: string, maxSockets = 16) {
+  const agent = new http.Agent({ keepAlive: true, maxSockets });
+  const { hostname, port } = new URL(baseUrl);
+  function post(path: string, body: string): Promise<{ status: number; text: string }> {
+    return new Promise((resolve, reject) => {
+      const request = http.request(
+        {
+          agent,
+          hostname,
+          port,
+          path,
+          method: 'POST',
+          headers: {
+            authorization: `Bearer ${token}`,
+            'content-type': 'application/json',
+            'content-length': Buffer.byteLength(body),
+          },
+        },
+        (response) => {
+          const chunks: Buffer[] = [];
+          response.on('data', (chunk: Buffer) => chunks.push(chunk));
+          response.on('end', () =>
+            resolve({ status: response.statusCode ?? 0, text: Buffer.concat(chunks).toString('utf8') }),
+          );
+          response.on('error', reject);
+        },
+      );
+      request.on('error', reject);
+      request.end(body);
+    });
+  }
+  return { post, close: () => agent.destroy() };
+}
+
+/** One readings body: `count` readings of loop slots fromK…, one input and one output each. */
+export function readingsBody(fromK: number, count: number): string {
+  const parts: string[] = [];
+  for (let i = 0; i < count; i++) {
+    const k = fromK + i;
+    parts.push(`{"t":"${new Date(k * 1000).toISOString()}","u":[${(k % 100) / 10}],"y":[${0.5 + (k % 7) / 100}]}`);
+  }
+  return `{"readings":[${parts.join(',')}]}`;
+}

@@ -1,33 +1,16 @@
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../ops/idp/demo-accounts.js';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { appUrl, launchBrowser, signIn, stack } from './browser.js';
 
-const stack = inject('stack');
-const appUrl = stack.appUrl as string;
 let browser: Browser;
 
 beforeAll(async () => {
-  browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  });
+  browser = await launchBrowser();
 });
-afterAll(async () => { await browser?.close(); });
-
-async function signIn(page: Page, email: string): Promise<void> {
-  await page.goto(`${appUrl}/`);
-  await page.getByRole('button', { name: 'Sign in with your plant account' }).click();
-  await page.waitForURL(`${stack.idpIssuer}/**`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  const allow = page.getByRole('button', { name: 'Allow' });
-  await Promise.race([allow.waitFor({ timeout: 10_000 }).then(() => allow.click()), page.waitForURL(`${appUrl}/**`, { timeout: 10_000 })]);
-  await page.waitForURL(`${appUrl}/**`);
-  await page.getByRole('navigation', { name: 'Main' }).waitFor();
-}
+afterAll(async () => {
+  await browser?.close();
+});
 
 const navNames = async (page: Page) =>
   (await page.getByRole('navigation', { name: 'Main' }).getByRole('link').allInnerTexts()).map((t) => t.trim());

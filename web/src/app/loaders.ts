@@ -6,7 +6,9 @@ import { isApiError } from '../lib/api';
 
 /** The sign-in page, remembering where to come back to after the identity provider. */
 export function signInPath(returnTo: string): string {
-  return returnTo === '/' || returnTo.startsWith('/signin') ? '/signin' : `/signin?returnTo=${encodeURIComponent(returnTo)}`;
+  return returnTo === '/' || returnTo.startsWith('/signin')
+    ? '/signin'
+    : `/signin?returnTo=${encodeURIComponent(returnTo)}`;
 }
 
 /** The frame needs the signed-in user; without a session the only useful place is the sign-in page. */

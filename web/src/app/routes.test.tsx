@@ -32,10 +32,10 @@ describe('app routes', () => {
   });
 
   it('shows an empty floor that explains how loops get there', async () => {
-    stubFetch(signedInAs(['operator']));
+    stubFetch({ ...signedInAs(['operator']), 'GET /api/v1/loops': { body: [] }, 'GET /api/v1/areas': { body: [] } });
     renderApp('/');
     expect(await screen.findByRole('heading', { level: 1, name: 'Floor' })).toBeTruthy();
-    expect(screen.getByText(/once a control engineer registers it and activates a model version/)).toBeTruthy();
+    expect(await screen.findByText(/once a control engineer registers it and activates a model version/)).toBeTruthy();
   });
 
   it('shows the cautions and the version on the About page', async () => {

@@ -13,8 +13,8 @@ import { adminRoutes } from './routes/admin/admin-routes';
 import { AboutPage } from './routes/about';
 import { AlertsPage } from './routes/alerts';
 import { FloorPage } from './routes/floor';
-import { LoopsPage } from './routes/loops';
-import { ModelsPage } from './routes/models';
+import { loopRoutes } from './routes/loops/loop-routes';
+import { modelRoutes } from './routes/models/models-routes';
 import { RotaPage } from './routes/rota';
 import { SignInPage } from './routes/signin';
 import { MyAccessTokensPage } from './routes/tokens';
@@ -36,11 +36,11 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               errorElement: <RouteError />,
               children: [
                 { index: true, element: <FloorPage /> },
-                { path: 'loops', element: <LoopsPage /> },
+                { path: 'loops', children: loopRoutes(queryClient) },
                 {
                   path: 'models',
                   element: <RequireRole role={sectionRole('models')} />,
-                  children: [{ index: true, element: <ModelsPage /> }],
+                  children: modelRoutes(queryClient),
                 },
                 { path: 'alerts', element: <AlertsPage /> },
                 { path: 'rota', element: <RotaPage /> },

@@ -15,5 +15,8 @@ export const ADVISORY_CAUTION_SHORT =
 
 declare const __SHADOWLOOP_VERSION__: string | undefined;
 
-export const APP_VERSION =
-  typeof __SHADOWLOOP_VERSION__ === 'string' ? __SHADOWLOOP_VERSION__ : 'development build';
+export const APP_VERSION = typeof __SHADOWLOOP_VERSION__ === 'string' ? __SHADOWLOOP_VERSION__ : 'development build';
+
+/** Beside every forecast and move preview: what the model's what-if is, and what it is not. */
+export const MOVE_PREVIEW_CAUTION =
+  "Advisory: this is the model's what-if, not a setpoint change — nothing is sent to the plant. Act only within the site's operating procedures.";

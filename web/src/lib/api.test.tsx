@@ -18,7 +18,10 @@ describe('apiFetch', () => {
 
   it('turns the error shape into an ApiError with status, code, message and details', async () => {
     stubFetch({
-      'PUT /api/v1/users/u1/roles': { status: 400, body: errorBody('validation_failed', 'Roles must be a list.', [{ path: ['roles'] }]) },
+      'PUT /api/v1/users/u1/roles': {
+        status: 400,
+        body: errorBody('validation_failed', 'Roles must be a list.', [{ path: ['roles'] }]),
+      },
       'GET /api/v1/csrf-token': { body: { token: 't' } },
     });
     const failure = await apiFetch('/api/v1/users/u1/roles', { method: 'PUT', body: {} }).catch((e: unknown) => e);
@@ -32,12 +35,18 @@ describe('apiFetch', () => {
   });
 
   it('explains an answer that is not in the error shape', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => new Response('<html>Bad gateway</html>', { status: 502 })));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => new Response('<html>Bad gateway</html>', { status: 502 })),
+    );
     await expect(apiFetch('/api/v1/me')).rejects.toMatchObject({ status: 502, code: 'http_error' });
   });
 
   it('reports a network failure as status 0', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
     await expect(apiFetch('/api/v1/me')).rejects.toMatchObject({ status: 0, code: 'network_error' });
   });
 
@@ -71,7 +80,9 @@ describe('apiFetch', () => {
       return jsonResponse({ status: 201, body: { id: 'k1' } });
     });
     vi.stubGlobal('fetch', fetchMock);
-    await expect(apiFetch('/api/v1/access-tokens', { method: 'POST', body: { label: 'x' } })).resolves.toEqual({ id: 'k1' });
+    await expect(apiFetch('/api/v1/access-tokens', { method: 'POST', body: { label: 'x' } })).resolves.toEqual({
+      id: 'k1',
+    });
     expect(tokenCalls).toBe(2);
     expect(fetchMock).toHaveBeenCalledTimes(4);
   });
@@ -85,6 +96,9 @@ describe('apiFetch', () => {
           : jsonResponse({ status: 403, body: errorBody('csrf_invalid', 'The form token has expired.') }),
       ),
     );
-    await expect(apiFetch('/auth/logout', { method: 'POST' })).rejects.toMatchObject({ status: 403, code: 'csrf_invalid' });
+    await expect(apiFetch('/auth/logout', { method: 'POST' })).rejects.toMatchObject({
+      status: 403,
+      code: 'csrf_invalid',
+    });
   });
 });

@@ -39,6 +39,7 @@ function csrfToken(): Promise<string> {
 
 export type ApiRequest = {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+  /** JSON-encoded, except FormData, which goes as multipart with the browser's boundary. */
   body?: unknown;
   signal?: AbortSignal;
 };
@@ -46,13 +47,14 @@ export type ApiRequest = {
 async function buildInit(request: ApiRequest): Promise<RequestInit> {
   const method = request.method ?? 'GET';
   const headers: Record<string, string> = { accept: 'application/json' };
-  if (request.body !== undefined) headers['content-type'] = 'application/json';
+  const isForm = request.body instanceof FormData;
+  if (request.body !== undefined && !isForm) headers['content-type'] = 'application/json';
   if (STATE_CHANGING_METHODS.has(method)) headers['x-csrf-token'] = await csrfToken();
   return {
     method,
     headers,
     signal: request.signal,
-    body: request.body === undefined ? undefined : JSON.stringify(request.body),
+    body: request.body === undefined ? undefined : isForm ? (request.body as FormData) : JSON.stringify(request.body),
   };
 }
 

@@ -4,6 +4,7 @@ import { afterEach, vi } from 'vitest';
 import { createShadowloopApp } from '../app/create-app';
 import { AppProvider } from '../app/provider';
 import { forgetCsrfToken } from '../lib/api';
+import { keepSocketsOffline } from './fake-socket';
 
 afterEach(() => {
   cleanup();
@@ -11,8 +12,9 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-/** Renders the whole app, routes and all, at a path, with a query client that never retries. */
+/** Renders the whole app, routes and all, at a path, with a query client that never retries and no live connection. */
 export function renderApp(path: string) {
+  keepSocketsOffline();
   const app = createShadowloopApp({
     createRouter: (routes) => createMemoryRouter(routes, { initialEntries: [path] }),
     queryClient: { retry: false },

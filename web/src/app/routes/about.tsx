@@ -9,16 +9,14 @@ export function AboutPage() {
       <section className="space-y-2">
         <h2 className="text-base font-bold">How it works</h2>
         <p>
-          A control engineer registers a loop and its identified discrete-time state-space model,
-          x(k+1) = A x(k) + B u(k), y(k) = C x(k) + D u(k), at the loop&apos;s sample period. Once a
-          model version is reviewed and activated, its twin takes the measured inputs each sample,
-          predicts the next state, and compares the prediction with the readings from the plant
-          historian.
+          A control engineer registers a loop and its identified discrete-time state-space model, x(k+1) = A x(k) + B
+          u(k), y(k) = C x(k) + D u(k), at the loop&apos;s sample period. Once a model version is reviewed and
+          activated, its twin takes the measured inputs each sample, predicts the next state, and compares the
+          prediction with the readings from the plant historian.
         </p>
         <p>
-          When the residuals leave the residual band and a drift rule builds up, Shadowloop raises a
-          divergence alert and e-mails the on-call engineer, ideally before the loop&apos;s own
-          limits trip.
+          When the residuals leave the residual band and a drift rule builds up, Shadowloop raises a divergence alert
+          and e-mails the on-call engineer, ideally before the loop&apos;s own limits trip.
         </p>
       </section>
       <CautionBlock heading="Cautions" />

@@ -5,7 +5,10 @@ import { PLANT_NAME, PRODUCT_SUMMARY } from '../../config/product';
 
 function SignInProblem({ code }: { code: string }) {
   return (
-    <div role="alert" className="rounded-sm border border-diverged/50 border-l-4 border-l-diverged bg-panel px-4 py-3 text-sm">
+    <div
+      role="alert"
+      className="rounded-sm border border-diverged/50 border-l-4 border-l-diverged bg-panel px-4 py-3 text-sm"
+    >
       <p className="font-bold">Sign-in did not complete</p>
       <p className="mt-1">
         {code === 'sign-in-failed'

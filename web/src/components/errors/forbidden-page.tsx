@@ -13,8 +13,8 @@ export function ForbiddenPage({ requiredRole, userRoles }: ForbiddenPageProps) {
       <PageHeader title="Not available for your role" />
       <div className="max-w-2xl space-y-2 text-sm">
         <p>
-          This page needs the <strong>{ROLE_LABELS[requiredRole]}</strong> role (
-          <code>{requiredRole}</code>). Your roles: {describeRoles(userRoles)}.
+          This page needs the <strong>{ROLE_LABELS[requiredRole]}</strong> role (<code>{requiredRole}</code>). Your
+          roles: {describeRoles(userRoles)}.
         </p>
         <p>If your work needs it, ask a Shadowloop administrator to add the role to your account.</p>
         <p>

@@ -5,7 +5,10 @@ import { renderApp } from '../../test/render-app';
 
 describe('user menu', () => {
   it('shows the name and roles and signs out to the sign-in page', async () => {
-    const fetchMock = stubFetch({ ...signedInAs(['operator', 'oncall'], 'Rowan Vale'), 'POST /auth/logout': { status: 204 } });
+    const fetchMock = stubFetch({
+      ...signedInAs(['operator', 'oncall'], 'Rowan Vale'),
+      'POST /auth/logout': { status: 204 },
+    });
     const { router } = renderApp('/');
     fireEvent.click(await screen.findByRole('button', { name: 'User menu' }));
     expect(screen.getByText('On-call engineer')).toBeTruthy();

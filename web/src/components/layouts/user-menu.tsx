@@ -46,7 +46,10 @@ export function UserMenu({ user }: { user: SignedInUser }) {
         <span aria-hidden="true">▾</span>
       </button>
       {open ? (
-        <div id={panelId} className="absolute right-0 top-full z-30 mt-1 w-64 rounded-sm border border-rule bg-panel p-3 text-sm shadow-md">
+        <div
+          id={panelId}
+          className="absolute right-0 top-full z-30 mt-1 w-64 rounded-sm border border-rule bg-panel p-3 text-sm shadow-md"
+        >
           <p className="font-bold">{user.name}</p>
           <p className="truncate text-ink/75">{user.email}</p>
           <p className="mt-2 text-xs font-bold uppercase tracking-wide text-ink/70">Roles</p>

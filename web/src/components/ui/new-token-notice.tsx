@@ -1,13 +1,19 @@
 import { useState } from 'react';
-import { Button } from '../../../components/ui/button';
-import type { CreatedAccessToken } from '../api/create-access-token';
+import { Button } from './button';
 
 type NewTokenNoticeProps = {
-  created: CreatedAccessToken;
+  created: { label: string; token: string };
+  /** Who can do what with it; a personal token acts with its owner's roles. */
+  reach?: string;
   onDismiss: () => void;
 };
 
-export function NewTokenNotice({ created, onDismiss }: NewTokenNoticeProps) {
+/** A secret shown exactly once, with a copy button and the warning that it will not come back. */
+export function NewTokenNotice({
+  created,
+  reach = 'Anyone holding it acts with your roles.',
+  onDismiss,
+}: NewTokenNoticeProps) {
   const [copyState, setCopyState] = useState<'idle' | 'copied' | 'failed'>('idle');
 
   const copy = async () => {
@@ -26,7 +32,7 @@ export function NewTokenNotice({ created, onDismiss }: NewTokenNoticeProps) {
     >
       <h2 className="font-bold">Token “{created.label}” created</h2>
       <p role="note" className="font-medium">
-        Copy it now: Shadowloop will not show this token again. Anyone holding it acts with your roles.
+        Copy it now: Shadowloop will not show this token again. {reach}
       </p>
       <div className="flex flex-wrap items-center gap-2">
         <input

@@ -1,10 +1,13 @@
-export type StatusTone = 'in_step' | 'drifting' | 'diverged' | 'stale';
+export type StatusTone = 'in_step' | 'drifting' | 'diverged' | 'stale' | 'twin' | 'ready' | 'none';
 
 const DOT_CLASSES: Record<StatusTone, string> = {
   in_step: 'bg-in-step',
   drifting: 'bg-drifting',
   diverged: 'bg-diverged',
   stale: 'bg-stale',
+  twin: 'bg-twin',
+  ready: 'border-2 border-in-step bg-panel',
+  none: 'border-2 border-stale bg-panel',
 };
 
 type StatusWordProps = {

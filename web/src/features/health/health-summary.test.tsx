@@ -18,7 +18,10 @@ describe('health summary', () => {
       ...signedInAs(['operator']),
       'GET /api/health': {
         status: 503,
-        body: { status: 'degraded', checks: { database: { ok: false, detail: 'connection refused' }, mail: { ok: true } } },
+        body: {
+          status: 'degraded',
+          checks: { database: { ok: false, detail: 'connection refused' }, mail: { ok: true } },
+        },
       },
     });
     renderApp('/');

@@ -11,7 +11,10 @@ export const CHECK_LABELS: Record<string, string> = {
 
 export type HealthSummary = { tone: StatusTone; word: string };
 
-export function summariseHealth(report: (HealthReport & { httpStatus: number }) | undefined, failed: boolean): HealthSummary {
+export function summariseHealth(
+  report: (HealthReport & { httpStatus: number }) | undefined,
+  failed: boolean,
+): HealthSummary {
   if (failed) return { tone: 'stale', word: 'No answer' };
   if (!report) return { tone: 'stale', word: 'Checking' };
   if (report.httpStatus === 503 || report.checks.database?.ok === false) return { tone: 'diverged', word: 'Down' };

@@ -1,7 +1,9 @@
-import { NavLink, Outlet } from 'react-router';
+import { Outlet } from 'react-router';
+import { RouteTabs } from '../../../components/ui/route-tabs';
 
 const ADMIN_PAGES = [
   { to: '/admin/users', label: 'Users and roles' },
+  { to: '/admin/ingest-sources', label: 'Ingest sources' },
   { to: '/admin/access-tokens', label: 'Access tokens' },
   { to: '/admin/dev-mail', label: 'Development mailbox' },
   { to: '/admin/audit', label: 'Audit log' },
@@ -10,24 +12,7 @@ const ADMIN_PAGES = [
 export function AdminLayout() {
   return (
     <div className="space-y-4">
-      <nav aria-label="Admin" className="border-b border-rule">
-        <ul className="flex flex-wrap gap-1">
-          {ADMIN_PAGES.map((page) => (
-            <li key={page.to}>
-              <NavLink
-                to={page.to}
-                className={({ isActive }) =>
-                  `-mb-px inline-block border-b-4 px-3 py-1.5 text-sm font-medium ${
-                    isActive ? 'border-b-twin font-bold' : 'border-b-transparent hover:border-b-rule'
-                  }`
-                }
-              >
-                {page.label}
-              </NavLink>
-            </li>
-          ))}
-        </ul>
-      </nav>
+      <RouteTabs label="Admin" tabs={ADMIN_PAGES} />
       <Outlet />
     </div>
   );

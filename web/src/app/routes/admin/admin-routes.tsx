@@ -4,12 +4,14 @@ import { PageLoading } from '../../../components/ui/page-loading';
 import { accessTokensQueryOptions } from '../../../features/access-tokens/api/get-access-tokens';
 import { auditLogQueryOptions, parseAuditSearch } from '../../../features/audit/api/get-audit-log';
 import { devMailQueryOptions } from '../../../features/dev-mail/api/get-dev-mail';
+import { ingestSourcesQueryOptions } from '../../../features/ingest-sources/api/get-ingest-sources';
 import { usersQueryOptions } from '../../../features/users/api/get-users';
 import { warmCacheLoader } from '../../loaders';
 import { AdminAccessTokensPage } from './access-tokens';
 import { AdminLayout } from './admin-layout';
 import { AdminAuditPage } from './audit';
 import { AdminDevMailPage } from './dev-mail';
+import { AdminIngestSourcesPage } from './ingest-sources';
 import { AdminUsersPage } from './users';
 
 export function adminRoutes(queryClient: QueryClient): RouteObject[] {
@@ -24,6 +26,12 @@ export function adminRoutes(queryClient: QueryClient): RouteObject[] {
           loader: warmCacheLoader(queryClient, () => usersQueryOptions(), adminOnly),
           HydrateFallback: PageLoading,
           element: <AdminUsersPage />,
+        },
+        {
+          path: 'ingest-sources',
+          loader: warmCacheLoader(queryClient, () => ingestSourcesQueryOptions(), adminOnly),
+          HydrateFallback: PageLoading,
+          element: <AdminIngestSourcesPage />,
         },
         {
           path: 'access-tokens',

@@ -49,7 +49,9 @@ export function AccessTokenTable({ scope }: { scope: AccessTokenScope }) {
             </Td>
           </tr>
         ) : null}
-        {tokens.data?.map((token) => <TokenRow key={token.id} token={token} showOwner={showOwner} />)}
+        {tokens.data?.map((token) => (
+          <TokenRow key={token.id} token={token} showOwner={showOwner} />
+        ))}
       </tbody>
     </Table>
   );

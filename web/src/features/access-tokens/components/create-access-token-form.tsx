@@ -2,7 +2,7 @@ import { useState, type FormEvent } from 'react';
 import { describeError } from '../../../components/errors/describe-error';
 import { Button } from '../../../components/ui/button';
 import { useCreateAccessToken, type CreatedAccessToken } from '../api/create-access-token';
-import { NewTokenNotice } from './new-token-notice';
+import { NewTokenNotice } from '../../../components/ui/new-token-notice';
 
 export function CreateAccessTokenForm() {
   const [label, setLabel] = useState('');

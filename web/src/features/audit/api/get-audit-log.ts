@@ -7,7 +7,7 @@ export type { AuditEntry };
 
 export type AuditPage = { items: AuditEntry[]; total: number };
 
-export type AuditQuery = { limit: number; offset: number; action: string };
+export type AuditQuery = { limit: number; offset: number; action: string; targetType?: string; targetId?: string };
 
 export const AUDIT_PAGE_SIZE = 50;
 
@@ -26,9 +26,16 @@ export function parseAuditSearch(search: URLSearchParams): AuditQuery {
   };
 }
 
+/** The entries about one thing, e.g. one loop (`loop`, its id). */
+export function auditQueryFor(targetType: string, targetId: string, page = 1): AuditQuery {
+  return { limit: AUDIT_PAGE_SIZE, offset: (page - 1) * AUDIT_PAGE_SIZE, action: '', targetType, targetId };
+}
+
 export function getAuditLog(query: AuditQuery, signal?: AbortSignal): Promise<AuditPage> {
   const params = new URLSearchParams({ limit: String(query.limit), offset: String(query.offset) });
   if (query.action) params.set('action', query.action);
+  if (query.targetType) params.set('targetType', query.targetType);
+  if (query.targetId) params.set('targetId', query.targetId);
   return apiFetch<AuditPage>(`/api/v1/audit?${params.toString()}`, { signal });
 }
 

@@ -1,11 +1,16 @@
 import { SkeletonRows, Table, Td, Th } from '../../../components/ui/table';
 import { formatTimestamp } from '../../../lib/format-time';
 import type { AuditEntry } from '../api/get-audit-log';
+import { describeTarget } from '../utils/describe-target';
 
 function DetailsCell({ details }: { details: unknown }) {
   if (details === null || details === undefined) return <span className="text-ink/60">—</span>;
   const text = typeof details === 'string' ? details : JSON.stringify(details);
-  return <code className="block max-w-md truncate text-xs" title={text}>{text}</code>;
+  return (
+    <code className="block max-w-md truncate text-xs" title={text}>
+      {text}
+    </code>
+  );
 }
 
 type AuditLogTableProps = {
@@ -44,7 +49,7 @@ export function AuditLogTable({ entries, loading, filtered }: AuditLogTableProps
             <Td>
               <code className="text-xs">{entry.action}</code>
             </Td>
-            <Td>{entry.target ?? '—'}</Td>
+            <Td title={entry.target ?? undefined}>{describeTarget(entry)}</Td>
             <Td>
               <DetailsCell details={entry.details} />
             </Td>

@@ -12,7 +12,11 @@ type AuditPagerProps = {
 export function AuditPager({ offset, limit, shown, total, loading, onPage }: AuditPagerProps) {
   const page = Math.floor(offset / limit) + 1;
   const lastPage = Math.max(1, Math.ceil(total / limit));
-  const range = loading ? 'Loading entries…' : shown === 0 ? 'No entries' : `Entries ${offset + 1}–${offset + shown} of ${total}`;
+  const range = loading
+    ? 'Loading entries…'
+    : shown === 0
+      ? 'No entries'
+      : `Entries ${offset + 1}–${offset + shown} of ${total}`;
   return (
     <div className="flex items-center justify-between gap-3 text-sm">
       <p className="tabular-nums" aria-live="polite">

@@ -28,8 +28,8 @@ export function DevMailbox() {
     return (
       <EmptyState title="The local mail server is not in use">
         <p>
-          This Shadowloop sends its e-mail through the site&apos;s mail server, so there is no
-          development mailbox to show. Check delivery in the site&apos;s own mail system.
+          This Shadowloop sends its e-mail through the site&apos;s mail server, so there is no development mailbox to
+          show. Check delivery in the site&apos;s own mail system.
         </p>
       </EmptyState>
     );

@@ -32,7 +32,9 @@ describe('users and roles', () => {
       }),
     );
     renderApp('/admin/users');
-    fireEvent.click(await screen.findByRole('checkbox', { name: 'On-call engineer role for operator@quillmere.example' }));
+    fireEvent.click(
+      await screen.findByRole('checkbox', { name: 'On-call engineer role for operator@quillmere.example' }),
+    );
     fireEvent.click(screen.getByRole('button', { name: 'Save roles for operator@quillmere.example' }));
     await waitFor(() => expect(sent).toEqual([{ roles: ['operator', 'oncall'] }]));
     const put = fetchMock.mock.calls.find(([, init]) => init?.method === 'PUT');

@@ -1,0 +1,49 @@
+import { useEffect, useId, useRef, type ReactNode } from 'react';
+
+type DialogProps = {
+  title: string;
+  onClose: () => void;
+  children: ReactNode;
+};
+
+/** A modal panel: focus moves in when it opens and Escape closes it. */
+export function Dialog({ title, onClose, children }: DialogProps) {
+  const titleId = useId();
+  const panelRef = useRef<HTMLDivElement>(null);
+  const closeRef = useRef(onClose);
+
+  useEffect(() => {
+    closeRef.current = onClose;
+  }, [onClose]);
+
+  useEffect(() => {
+    const previous = document.activeElement as HTMLElement | null;
+    panelRef.current?.focus();
+    const onKeyDown = (event: KeyboardEvent) => {
+      if (event.key === 'Escape') closeRef.current();
+    };
+    document.addEventListener('keydown', onKeyDown);
+    return () => {
+      document.removeEventListener('keydown', onKeyDown);
+      previous?.focus();
+    };
+  }, []);
+
+  return (
+    <div className="fixed inset-0 z-40 flex items-start justify-center overflow-y-auto bg-ink/40 px-4 py-12">
+      <div
+        ref={panelRef}
+        role="dialog"
+        aria-modal="true"
+        aria-labelledby={titleId}
+        tabIndex={-1}
+        className="w-full max-w-xl rounded-sm border border-rule border-t-4 border-t-twin bg-panel p-5 text-sm shadow-lg focus:outline-none"
+      >
+        <h2 id={titleId} className="text-lg font-bold">
+          {title}
+        </h2>
+        <div className="mt-3 space-y-3">{children}</div>
+      </div>
+    </div>
+  );
+}

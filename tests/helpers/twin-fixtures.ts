@@ -99,3 +99,22 @@ export async function eventually<T>(
     await new Promise((resolve) => setTimeout(resolve, 20));
   }
 }
+
+/** A loop with two measured outputs and the stable two-state model the ingest and series suites share. */
+export const TWO_OUTPUTS = {
+  outputs: [
+    { name: 'Level', unit: 'm' },
+    { name: 'Flow', unit: 'm³/h' },
+  ],
+};
+export const TWO_OUTPUT_MODEL = {
+  A: [
+    [0.9, 0.05],
+    [0, 0.7],
+  ],
+  B: [[0], [0.3]],
+  C: [
+    [1, 0],
+    [0, 1],
+  ],
+};

@@ -5,7 +5,16 @@ import type { Loop } from '../../api/src/contracts/registry.js';
 import { startApi, type RunningApi } from '../helpers/api-server.js';
 import { ENGINEER, OPERATOR, REVIEWER, signedIn } from '../helpers/registry-fixtures.js';
 import type { SessionClient } from '../helpers/session-client.js';
-import { loopWithTwin, openDb, personalToken, postReadings, reading, slotMsAgo } from '../helpers/twin-fixtures.js';
+import {
+  loopWithTwin,
+  openDb,
+  personalToken,
+  postReadings,
+  reading,
+  slotMsAgo,
+  TWO_OUTPUTS,
+  TWO_OUTPUT_MODEL,
+} from '../helpers/twin-fixtures.js';
 
 const stack = inject('stack');
 let api: RunningApi;
@@ -14,24 +23,6 @@ let engineer: SessionClient;
 let operator: SessionClient;
 let token: string;
 let loop: Loop;
-
-const TWO_OUTPUTS = {
-  outputs: [
-    { name: 'Level', unit: 'm' },
-    { name: 'Flow', unit: 'm³/h' },
-  ],
-};
-const TWO_OUTPUT_MODEL = {
-  A: [
-    [0.9, 0.05],
-    [0, 0.7],
-  ],
-  B: [[0], [0.3]],
-  C: [
-    [1, 0],
-    [0, 1],
-  ],
-};
 
 beforeAll(async () => {
   api = await startApi(stack);

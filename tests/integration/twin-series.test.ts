@@ -13,6 +13,8 @@ import {
   postReadings,
   reading,
   slotMsAgo,
+  TWO_OUTPUTS,
+  TWO_OUTPUT_MODEL,
 } from '../helpers/twin-fixtures.js';
 
 const stack = inject('stack');
@@ -22,24 +24,6 @@ let operator: SessionClient;
 let token: string;
 let loop: Loop;
 let version: ModelVersion;
-
-const TWO_OUTPUTS = {
-  outputs: [
-    { name: 'Level', unit: 'm' },
-    { name: 'Flow', unit: 'm³/h' },
-  ],
-};
-const TWO_OUTPUT_MODEL = {
-  A: [
-    [0.9, 0.05],
-    [0, 0.7],
-  ],
-  B: [[0], [0.3]],
-  C: [
-    [1, 0],
-    [0, 1],
-  ],
-};
 
 beforeAll(async () => {
   api = await startApi(stack);

@@ -75,7 +75,7 @@ export function createApp(deps: AppDeps): Express {
     {
       method: 'get',
       path: '/api/v1/csrf-token',
-      access: 'public',
+      access: 'signed-in',
       tag: 'security',
       summary: 'The CSRF token for state-changing browser requests (header x-csrf-token)',
       response: z.object({ token: z.string() }),

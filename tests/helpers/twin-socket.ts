@@ -4,13 +4,20 @@ import type { ClientToServerEvents, ServerToClientEvents, WatchAck } from '../..
 export type TwinSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 
 /** A socket.io client over WebSocket: with an access token, a session cookie, or nothing. */
-export function twinSocket(url: string, credentials: { token?: string; cookie?: string } = {}): TwinSocket {
+export function twinSocket(
+  url: string,
+  credentials: { token?: string; cookie?: string; origin?: string } = {},
+): TwinSocket {
+  const headers = {
+    ...(credentials.cookie ? { cookie: credentials.cookie } : {}),
+    ...(credentials.origin ? { origin: credentials.origin } : {}),
+  };
   return io(url, {
     transports: ['websocket'],
     reconnection: false,
     forceNew: true,
     ...(credentials.token ? { auth: { token: credentials.token } } : {}),
-    ...(credentials.cookie ? { extraHeaders: { cookie: credentials.cookie } } : {}),
+    ...(Object.keys(headers).length ? { extraHeaders: headers } : {}),
   });
 }
 

@@ -46,7 +46,7 @@ afterAll(async () => {
   await api.close();
 });
 
-const open = (url: string, credentials: { token?: string; cookie?: string } = {}) => {
+const open = (url: string, credentials: Parameters<typeof twinSocket>[1] = {}) => {
   const socket = twinSocket(url, credentials);
   sockets.push(socket);
   return socket;
@@ -87,6 +87,12 @@ describe('realtime', () => {
       error: { code: 'not_found' },
     });
     expect(await watchLoop(socket, 'not-a-uuid')).toMatchObject({ ok: false, error: { code: 'validation_failed' } });
+  });
+
+  it('refuses a browser socket opened from a page of another origin, even with the session cookie', async () => {
+    const cookie = await operator.jar.getCookieString(api.url);
+    await expect(connected(open(api.url, { cookie, origin: 'http://elsewhere.example' }))).rejects.toThrow();
+    await expect(connected(open(api.url, { cookie, origin: api.url }))).resolves.toBeUndefined();
   });
 
   it('signs a browser socket in with the session cookie and sends loop:status to its area room', async () => {

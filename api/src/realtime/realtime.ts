@@ -30,6 +30,9 @@ export function createRealtime(server: http.Server, deps: RealtimeDeps) {
   adapterPool.on('error', (error) => deps.logger.warn({ err: error }, 'realtime adapter connection failed'));
   const io: RealtimeServer = new Server(server, {
     serveClient: false,
+    // Browsers send Origin: a page of another origin must not open a socket with our session cookie.
+    allowRequest: (req, callback) =>
+      callback(null, isOwnOrigin(req.headers.origin, req.headers.host, deps.config.PUBLIC_URL)),
     adapter: createAdapter(adapterPool, {
       errorHandler: (error: Error) => deps.logger.warn({ err: error }, 'realtime adapter error'),
     }),
@@ -48,3 +51,14 @@ export function createRealtime(server: http.Server, deps: RealtimeDeps) {
 }
 
 export type Realtime = ReturnType<typeof createRealtime>;
+
+/** True for requests without Origin (scripts) and for the api's own origin, as seen or as configured. */
+function isOwnOrigin(origin: string | undefined, host: string | undefined, publicUrl: string): boolean {
+  if (origin === undefined) return true;
+  try {
+    const { host: originHost, origin: normalised } = new URL(origin);
+    return originHost === host || normalised === new URL(publicUrl).origin;
+  } catch {
+    return false;
+  }
+}

@@ -16,7 +16,8 @@ export function AboutPage() {
         </p>
         <p>
           When the residuals leave the residual band and a drift rule builds up, Shadowloop raises a divergence alert
-          and e-mails the on-call engineer, ideally before the loop&apos;s own limits trip.
+          and e-mails the on-call engineer. Its alerts are advisory and may come late or not at all; the plant&apos;s
+          own alarms, trips and interlocks remain the protection.
         </p>
       </section>
       <CautionBlock heading="Cautions" />

@@ -6,10 +6,10 @@ import { summariseHealth } from './health-summary';
 
 describe('health summary', () => {
   it('names every state in words, not colour alone', () => {
-    expect(summariseHealth({ ...HEALTHY, status: 'ok', httpStatus: 200 }, false).word).toBe('Healthy');
-    expect(summariseHealth({ ...HEALTHY, status: 'degraded', httpStatus: 200 }, false).word).toBe('Degraded');
+    expect(summariseHealth({ ...HEALTHY, status: 'ok', httpStatus: 200 }, false).word).toBe('Services OK');
+    expect(summariseHealth({ ...HEALTHY, status: 'degraded', httpStatus: 200 }, false).word).toBe('Services degraded');
     const databaseDown = { status: 'degraded' as const, checks: { database: { ok: false } }, httpStatus: 503 };
-    expect(summariseHealth(databaseDown, false)).toEqual({ tone: 'diverged', word: 'Down' });
+    expect(summariseHealth(databaseDown, false)).toEqual({ tone: 'diverged', word: 'Services down' });
     expect(summariseHealth(undefined, true).word).toBe('No answer');
   });
 
@@ -25,7 +25,7 @@ describe('health summary', () => {
       },
     });
     renderApp('/');
-    expect(await screen.findByRole('button', { name: 'System health: Down' })).toBeTruthy();
+    expect(await screen.findByRole('button', { name: 'System health: Services down' })).toBeTruthy();
     expect(screen.getByText('Database: not ok (connection refused)')).toBeTruthy();
     expect(screen.getByText('Mail server: ok')).toBeTruthy();
   });

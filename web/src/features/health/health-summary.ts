@@ -17,9 +17,10 @@ export function summariseHealth(
 ): HealthSummary {
   if (failed) return { tone: 'stale', word: 'No answer' };
   if (!report) return { tone: 'stale', word: 'Checking' };
-  if (report.httpStatus === 503 || report.checks.database?.ok === false) return { tone: 'diverged', word: 'Down' };
-  if (report.status === 'degraded') return { tone: 'drifting', word: 'Degraded' };
-  return { tone: 'in_step', word: 'Healthy' };
+  if (report.httpStatus === 503 || report.checks.database?.ok === false)
+    return { tone: 'diverged', word: 'Services down' };
+  if (report.status === 'degraded') return { tone: 'drifting', word: 'Services degraded' };
+  return { tone: 'in_step', word: 'Services OK' };
 }
 
 export function describeCheck(name: string, check: HealthCheck): string {

@@ -8,7 +8,8 @@ export function LoopFacts({ loop }: { loop: Loop }) {
       <span>{loop.areaName}</span>
       <span className="tabular-nums">sample period {loop.samplePeriodS} s</span>
       <span>
-        {loop.inputs.length} in · {loop.states.length} states · {loop.outputs.length} out
+        {count(loop.inputs.length, 'input')} · {count(loop.states.length, 'state')} ·{' '}
+        {count(loop.outputs.length, 'output')}
       </span>
       <span>time zone {loop.timeZone}</span>
       <span className="inline-flex items-center gap-1">
@@ -17,3 +18,5 @@ export function LoopFacts({ loop }: { loop: Loop }) {
     </span>
   );
 }
+
+const count = (n: number, noun: string) => `${n} ${noun}${n === 1 ? '' : 's'}`;

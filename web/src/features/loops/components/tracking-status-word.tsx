@@ -6,7 +6,7 @@ export const TRACKING_STATUS_WORDS: Record<TrackingStatus, string> = {
   drifting: 'drifting',
   diverged: 'diverged',
   stale: 'stale',
-  no_twin: 'no twin',
+  no_twin: 'no twin running',
 };
 
 const TONES: Record<TrackingStatus, StatusTone> = {

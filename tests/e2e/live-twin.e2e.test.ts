@@ -125,7 +125,7 @@ describe('the live twin in Chromium', () => {
     await page.screenshot({ path: screenshotPath('live-twin-2-trend.png'), fullPage: true });
 
     const move = page.getByRole('region', { name: 'Try a move' });
-    await move.getByLabel('Step size (%)').fill('5');
+    await move.getByLabel('Step added to the input (%)').fill('5');
     await move.getByRole('button', { name: 'Preview the move' }).click();
     await move.getByText(/Dissolved oxygen: [\d.]+ mg\/L with the move/).waitFor();
     expect(await move.innerText()).toMatch(/not a setpoint change/);

@@ -107,6 +107,15 @@ describe('ingest sources', () => {
     expect(checked).toBeGreaterThan(20);
   });
 
+  it('queues two edits of the same source instead of failing one', async () => {
+    const edit = (loopIds: string[]) =>
+      admin.request('PUT', `/api/v1/ingest-sources/${source.id}/loops`, { loopIds }, { csrf: true });
+    const statuses = (await Promise.all([edit([scoped.id, other.id]), edit([scoped.id])])).map((r) => r.status);
+    expect(statuses).toEqual([200, 200]);
+    const rows = await db('ingest_source_loops').where({ source_id: source.id }).pluck('loop_id');
+    expect([[scoped.id], [scoped.id, other.id].sort()]).toContainEqual(rows.sort());
+  });
+
   it('follows a change of loops and stops working once revoked', async () => {
     const changed = await admin.request<IngestSource>(
       'PUT',
@@ -121,6 +130,13 @@ describe('ingest sources', () => {
     ).toBe(204);
     const revoked = await postReadings(api.url, source.token, scoped.id, one());
     expect(revoked.status).toBe(401);
+    const afterRevoke = await admin.request<{ error: { code: string } }>(
+      'PUT',
+      `/api/v1/ingest-sources/${source.id}/loops`,
+      { loopIds: [scoped.id] },
+      { csrf: true },
+    );
+    expect(afterRevoke.status).toBe(409);
     const actions = await db('audit_log').where({ target_id: source.id }).pluck('action');
     expect(actions).toEqual(
       expect.arrayContaining(['ingest_source.created', 'ingest_source.loops_changed', 'ingest_source.revoked']),

@@ -73,10 +73,17 @@ export async function createIngestSource(
   return { ...(await requireSource(db, id)), token: secret.token };
 }
 
+/**
+ * Replaces the loops a source may post for. The source row is locked so that two edits at once
+ * queue instead of colliding, and the audit's "before" is read under that lock.
+ */
 export async function setIngestSourceLoops(db: Db, actor: SignedInUser, id: string, loopIds: string[]) {
-  const before = await requireSource(db, id);
+  await requireSource(db, id);
   await assertLoopsExist(db, loopIds);
   await db.transaction(async (trx) => {
+    await trx('ingest_sources').where({ id }).forUpdate().first('id');
+    const before = await requireSource(trx, id);
+    if (before.revokedAt) throw conflict(`The ingest source "${before.name}" is revoked; create a new source instead.`);
     await replaceSourceLoops(trx, id, loopIds);
     await recordAudit(trx, {
       actor,

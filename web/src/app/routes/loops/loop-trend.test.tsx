@@ -116,10 +116,10 @@ describe('the Trend tab', () => {
 
     const move = screen.getByRole('region', { name: 'Try a move' });
     expect(within(move).getByText(MOVE_PREVIEW_CAUTION)).toBeTruthy();
-    fireEvent.change(within(move).getByLabelText('Step size (%)'), { target: { value: 'lots' } });
+    fireEvent.change(within(move).getByLabelText('Step added to the input (%)'), { target: { value: 'lots' } });
     fireEvent.click(within(move).getByRole('button', { name: 'Preview the move' }));
     expect(within(move).getByRole('alert').textContent).toMatch(/Enter a step size in %/);
-    fireEvent.change(within(move).getByLabelText('Step size (%)'), { target: { value: '5' } });
+    fireEvent.change(within(move).getByLabelText('Step added to the input (%)'), { target: { value: '5' } });
     fireEvent.click(within(move).getByRole('button', { name: 'Preview the move' }));
     await within(move).findByText('A step of +5 % in hot-water valve, after 60 samples:');
     expect(within(move).getByText(/^: 36 °C with the move, 35.4 °C held \(\+0.6 °C\)$/)).toBeTruthy();

@@ -84,12 +84,12 @@ export function TryAMove({
           </select>
         </label>
         <label className="flex flex-col gap-1">
-          <span className="font-medium">Step size{unit ? ` (${unit})` : ''}</span>
+          <span className="font-medium">Step added to the input{unit ? ` (${unit})` : ''}</span>
           <input
             value={step}
             onChange={(e) => setStep(e.target.value)}
             inputMode="decimal"
-            placeholder="e.g. 5"
+            placeholder="e.g. 5 to raise it, -5 to lower it"
             aria-invalid={problem ? true : undefined}
             className={INPUT_CLASSES}
           />

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { analyzeModel, discretizeZoh, steadyStateKalman, type Matrix } from '@shadowloop/simulator/engine';
+import { loopColumns } from '../api/src/modules/loops/loops.repository.js';
 import { DEMO_AREAS, DEMO_LOOPS, type DemoLoop, type DemoVersion } from './registry-demo/quillmere-loops.js';
 
 const AUTHOR = 'engineer@quillmere.example';
@@ -68,17 +69,8 @@ export async function seed(knex: Knex): Promise<void> {
       if (await trx('loops').where({ tag: loop.tag }).first('id')) continue;
       const [{ id }] = await trx('loops')
         .insert({
-          tag: loop.tag,
-          name: loop.name,
-          area_id: loop.area,
-          description: loop.description,
-          sample_period_s: loop.samplePeriodS,
-          inputs: json(loop.inputs),
-          states: json(loop.states),
-          outputs: json(loop.outputs),
-          operating_point: json(loop.operatingPoint),
+          ...loopColumns({ ...loop, timeZone: 'Europe/London' }),
           residual_band: json(loop.residualBand),
-          time_zone: 'Europe/London',
           created_by: people.author,
         })
         .returning<{ id: string }[]>('id');

@@ -107,7 +107,8 @@ export async function countVersions(db: Db, loopId: string): Promise<number> {
   return Number(count);
 }
 
-const toColumns = (loop: Partial<LoopRecord>) => ({
+/** A loop's API fields as columns of the loops table (undefined fields are left out of updates). */
+export const loopColumns = (loop: Partial<LoopRecord>) => ({
   tag: loop.tag,
   name: loop.name,
   area_id: loop.area,
@@ -123,7 +124,7 @@ const json = (value: unknown) => (value === undefined ? undefined : JSON.stringi
 
 export async function insertLoop(trx: Db, loop: LoopRecord, createdBy: string): Promise<string> {
   const [row] = await trx('loops')
-    .insert({ ...toColumns(loop), created_by: createdBy })
+    .insert({ ...loopColumns(loop), created_by: createdBy })
     .returning<{ id: string }[]>('id')
     .catch(rethrowDuplicateTag(loop.tag));
   return row.id;
@@ -132,7 +133,7 @@ export async function insertLoop(trx: Db, loop: LoopRecord, createdBy: string): 
 export async function updateLoopRow(trx: Db, id: string, loop: Partial<LoopRecord>): Promise<void> {
   await trx('loops')
     .where({ id })
-    .update({ ...toColumns(loop), updated_at: trx.fn.now() })
+    .update({ ...loopColumns(loop), updated_at: trx.fn.now() })
     .catch(rethrowDuplicateTag(loop.tag));
 }
 

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Button } from '../../../../components/ui/button';
-import { Field, INPUT_CLASSES } from '../../../../components/ui/field';
+import { NoteField, optionalNote } from '../../../../components/ui/note-field';
 import { useRetireVersion } from '../../api/retire-version';
 import type { Version } from '../../types';
 import { ActionError } from './action-error';
@@ -23,23 +23,9 @@ export function RetireVersion({ version, loopTag }: { version: Version; loopTag:
           ? `Retiring version ${version.number} stops the twin of ${loopTag} until another version is activated.`
           : `Retiring version ${version.number} keeps it from being activated.`}
       </p>
-      <Field label="Note (optional)">
-        {({ inputId }) => (
-          <textarea
-            id={inputId}
-            rows={2}
-            value={note}
-            onChange={(e) => setNote(e.target.value)}
-            className={`w-full max-w-2xl ${INPUT_CLASSES}`}
-          />
-        )}
-      </Field>
+      <NoteField label="Note (optional)" value={note} onChange={setNote} />
       <div className="flex gap-2">
-        <Button
-          variant="danger"
-          disabled={retire.isPending}
-          onClick={() => retire.mutate(note.trim() ? { note: note.trim() } : {})}
-        >
+        <Button variant="danger" disabled={retire.isPending} onClick={() => retire.mutate(optionalNote(note))}>
           {retire.isPending ? 'Retiring…' : `Retire version ${version.number}`}
         </Button>
         <Button variant="quiet" onClick={() => setOpen(false)}>

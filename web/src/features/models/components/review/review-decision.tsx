@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Button } from '../../../../components/ui/button';
-import { Field, INPUT_CLASSES } from '../../../../components/ui/field';
+import { NoteField, optionalNote } from '../../../../components/ui/note-field';
 import { useApproveVersion } from '../../api/approve-version';
 import { useRejectVersion } from '../../api/reject-version';
 import type { Version } from '../../types';
@@ -26,23 +26,9 @@ export function ReviewDecision({ version }: { version: Version }) {
           <strong>The author&apos;s reason for a model that is not stable:</strong> {version.justification}
         </p>
       ) : null}
-      <Field label="Review note (optional)">
-        {({ inputId }) => (
-          <textarea
-            id={inputId}
-            rows={2}
-            value={note}
-            onChange={(e) => setNote(e.target.value)}
-            className={`w-full max-w-2xl ${INPUT_CLASSES}`}
-          />
-        )}
-      </Field>
+      <NoteField label="Review note (optional)" value={note} onChange={setNote} />
       <div className="flex flex-wrap gap-2">
-        <Button
-          variant="primary"
-          disabled={busy}
-          onClick={() => approve.mutate(note.trim() ? { note: note.trim() } : {})}
-        >
+        <Button variant="primary" disabled={busy} onClick={() => approve.mutate(optionalNote(note))}>
           {approve.isPending ? 'Approving…' : 'Approve'}
         </Button>
         <Button variant="danger" disabled={busy} onClick={() => setRejecting(true)}>
@@ -51,18 +37,12 @@ export function ReviewDecision({ version }: { version: Version }) {
       </div>
       {rejecting ? (
         <div className="space-y-2 rounded-sm border border-rule bg-panel p-3">
-          <Field label="Reason for rejecting" hint="The author reads this to make a better version.">
-            {({ inputId, describedBy }) => (
-              <textarea
-                id={inputId}
-                aria-describedby={describedBy}
-                rows={2}
-                value={reason}
-                onChange={(e) => setReason(e.target.value)}
-                className={`w-full max-w-2xl ${INPUT_CLASSES}`}
-              />
-            )}
-          </Field>
+          <NoteField
+            label="Reason for rejecting"
+            hint="The author reads this to make a better version."
+            value={reason}
+            onChange={setReason}
+          />
           <div className="flex gap-2">
             <Button
               variant="danger"

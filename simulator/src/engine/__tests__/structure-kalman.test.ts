@@ -106,22 +106,7 @@ describe('steadyStateKalman', () => {
     }
   });
 
-  it('throws a clear error for an undetectable unstable mode', () => {
-    expect(() =>
-      steadyStateKalman(
-        [
-          [1.2, 0],
-          [0, 0.5],
-        ],
-        [[0, 1]],
-        [
-          [1, 0],
-          [0, 1],
-        ],
-        [[1]],
-      ),
-    ).toThrow(/detectable/);
-  });
+  // The refusal of an undetectable pair is checked once, in tests/reference/kalman.test.ts.
 
   it('refuses an R that is not positive definite', () => {
     expect(() => steadyStateKalman([[0.5]], [[1]], [[1]], [[0]])).toThrow(/R must be symmetric positive definite/);

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
 import type { Loop, ModelVersion } from '../../api/src/contracts/registry.js';
 import type { LoopTracking, LoopTrackingFields } from '../../api/src/contracts/twin.js';
 import { startApi, type RunningApi } from '../helpers/api-server.js';
@@ -49,9 +49,16 @@ async function loopWithTwin() {
 }
 const tracking = (loopId: string) => db('loop_tracking').where({ loop_id: loopId }).first();
 
+// Slots of one test count back from the same instant, so that a second boundary passing between two
+// posts cannot make "7 samples ago" land on the slot that was "6 samples ago".
+let nowSlotMs = 0;
+beforeEach(() => {
+  nowSlotMs = slotMsAgo(0);
+});
+
 /** Posts y = ŷ + r for the slot `samplesAgo` back, after storing the twin's prediction ŷ = 1. */
 async function postWithResidual(loop: Loop, version: ModelVersion, samplesAgo: number, r: number) {
-  const slotMs = slotMsAgo(samplesAgo);
+  const slotMs = nowSlotMs - samplesAgo * 1000;
   await insertPrediction(db, { loopId: loop.id, versionId: version.id, slotMs, x: [1, 0], y: [1] });
   const response = await postReadings(api.url, token, loop.id, [reading(slotMs, [0.5], [1 + r])]);
   expect(response.body.accepted).toBe(1);

@@ -26,6 +26,9 @@ import { registerDevMailRoutes } from './modules/dev-mail/dev-mail.routes.js';
 import { registerHealthRoutes } from './modules/health/health.routes.js';
 import { registerUserRoutes } from './modules/users/users.routes.js';
 import { registerLiveTwinRoutes } from './modules/live-twin.routes.js';
+import { registerAlertingRoutes } from './modules/alert.routes.js';
+import { createAckLinkRouter } from './modules/mail/ack-link.router.js';
+import { configureAlertMail } from './modules/mail/alert-mail.js';
 import { createPartitionKeeper, type PartitionKeeper } from './modules/readings/partitions.js';
 import { createTwinPublisher, type TwinPublisher } from './realtime/publisher.js';
 import { z } from 'zod';
@@ -70,6 +73,8 @@ export function createApp(deps: AppDeps): Express {
   const { generateToken, isRequestValid } = csrfSync({ getTokenFromRequest: (req) => req.get('x-csrf-token') });
   const routes = createRouteTable(isRequestValid);
   app.use(createAuthRouter({ config, db, passport, csrfValid: isRequestValid }));
+  // alert e-mails link back here; their one-click acknowledge links are signed with a key from SESSION_SECRET
+  configureAlertMail({ publicUrl: config.PUBLIC_URL, secret: config.SESSION_SECRET });
 
   routes.add(
     {
@@ -90,15 +95,17 @@ export function createApp(deps: AppDeps): Express {
   registerAreaRoutes(routes, db);
   registerLoopRoutes(routes, db);
   registerModelVersionRoutes(routes, db);
-  registerReviewRoutes(routes, db);
+  const publisher = deps.publisher ?? createTwinPublisher();
+  registerReviewRoutes(routes, db, publisher);
   registerAnalysisRoutes(routes);
   registerLiveTwinRoutes(routes, {
     config,
     db,
     pool,
     partitions: deps.partitions ?? createPartitionKeeper(db),
-    publisher: deps.publisher ?? createTwinPublisher(),
+    publisher,
   });
+  registerAlertingRoutes(routes, { config, db, publisher });
   const openApi = buildOpenApi(routes, deps.version);
   routes.add(
     {
@@ -112,6 +119,7 @@ export function createApp(deps: AppDeps): Express {
   );
 
   app.use(routes.router);
+  app.use(createAckLinkRouter({ config, db, publisher }));
   app.use(['/api', '/auth'], apiNotFound);
   serveWebApp(app, config.WEB_DIST);
   app.use(errorHandler);

@@ -7,6 +7,7 @@ import { createDb } from './db/knex.js';
 import { createPartitionKeeper } from './modules/readings/partitions.js';
 import { createTwinPublisher } from './realtime/publisher.js';
 import { createRealtime } from './realtime/realtime.js';
+import { startAlertWorkers } from './workers/alert-workers.js';
 
 /** The api process: parse config, connect, listen, shut down cleanly on SIGTERM. */
 const config = loadConfig();
@@ -27,6 +28,7 @@ const app = createApp({
 const server = http.createServer(app);
 const realtime = createRealtime(server, { config, db, pool, logger, publisher });
 const stopPartitionUpkeep = partitions.startUpkeep(logger);
+const workers = config.ALERT_WORKERS ? startAlertWorkers({ db, config, logger, publisher }) : null;
 server.listen(config.PORT, config.HOST, () => logger.info(`api listening on ${config.PUBLIC_URL}`));
 
 let stopping = false;
@@ -36,6 +38,7 @@ async function shutdown(): Promise<void> {
   stopping = true;
   stopPartitionUpkeep();
   server.closeAllConnections();
+  await workers?.stop();
   await realtime.close();
   await db.destroy();
   await pool.end();

@@ -10,8 +10,8 @@ const MODEL = {
   C: [[1, 0]],
 };
 
-/** Bench loops (1 input, 1 output, T = 1 s), each with an active version whose twin is running. */
-export async function createBenchLoops(db: Db, count: number, prefix: string): Promise<string[]> {
+/** Bench loops (1 input, 1 output, T = 1 s unless told), each with an active version whose twin is running. */
+export async function createBenchLoops(db: Db, count: number, prefix: string, samplePeriodS = 1): Promise<string[]> {
   const engineer = await db('users').where({ email: 'engineer@quillmere.example' }).first<{ id: string }>('id');
   const signal = (name: string) => JSON.stringify([{ name, unit: '' }]);
   const loops = await db('loops')
@@ -20,7 +20,7 @@ export async function createBenchLoops(db: Db, count: number, prefix: string): P
         tag: `${prefix}-${String(i).padStart(5, '0')}`,
         name: `bench loop ${i}`,
         area_id: 'storage',
-        sample_period_s: 1,
+        sample_period_s: samplePeriodS,
         inputs: signal('u'),
         states: JSON.stringify([
           { name: 'x1', unit: '' },
@@ -38,7 +38,7 @@ export async function createBenchLoops(db: Db, count: number, prefix: string): P
         loop_id: loop.id,
         number: 1,
         status: 'active',
-        sample_period_s: 1,
+        sample_period_s: samplePeriodS,
         a: JSON.stringify(MODEL.A),
         b: JSON.stringify(MODEL.B),
         c: JSON.stringify(MODEL.C),

@@ -3,7 +3,8 @@
  * against the raw fetch, and reading → twin:sample latency over many loops. It starts its own
  * throwaway PostgreSQL cluster and the api in this process (loopback only), and removes both.
  * `runIngestBench()` returns rows for ops/bench/run.ts; run directly it prints them.
- * BENCH_INGEST_SECONDS (default 60), BENCH_LATENCY_LOOPS (200), BENCH_LATENCY_SECONDS (20).
+ * BENCH_INGEST_SECONDS (default 60), BENCH_LATENCY_LOOPS (200), BENCH_LATENCY_SECONDS (20),
+ * BENCH_ALERT_LOOPS (2000), BENCH_ALERT_PERIOD_S (10).
  */
 import { pathToFileURL } from 'node:url';
 import { createAccessToken } from '../../api/src/modules/access-tokens/access-tokens.service.js';
@@ -11,6 +12,7 @@ import { benchToken, createBenchLoops, insertBenchPredictions } from './bench-da
 import { startBenchStack, type BenchStack } from './bench-stack.js';
 import { printBenchTable, type BenchRow } from './engine-bench.js';
 import { copyRate, httpIngestRate } from './ingest-throughput.js';
+import { alertLatency, prepareAlertLoops } from './alert-latency.js';
 import { sampleLatency } from './sample-latency.js';
 import { fillWeek, seriesSpeed } from './series-speed.js';
 
@@ -92,14 +94,46 @@ async function latencyRows(stack: BenchStack): Promise<BenchRow[]> {
   ];
 }
 
+async function alertRows(stack: BenchStack): Promise<BenchRow[]> {
+  const count = setting('BENCH_ALERT_LOOPS', 2000);
+  const periodS = setting('BENCH_ALERT_PERIOD_S', 10);
+  const periods = { healthy: 3, faulty: 4 };
+  const loops = await createBenchLoops(stack.db, count, 'BENCH-AL', periodS);
+  const fromK = Math.ceil(Date.now() / (periodS * 1000)) + 2;
+  await prepareAlertLoops(stack.db, loops, periodS, fromK, periods.healthy + periods.faulty);
+  const bridge = await benchToken(stack.db, loops, 'bench alerts');
+  const result = await alertLatency(
+    stack.url,
+    { bridge, watcher: await personalToken(stack) },
+    loops,
+    periodS,
+    fromK,
+    periods,
+  );
+  const missing = result.expected - result.received;
+  return [
+    {
+      name:
+        `reading posted → alert:raised at a client, ${count} loops × 1 reading per ${periodS} s ` +
+        `(${Math.round(count / periodS)} posts/s), a band fault in every loop`,
+      target: 'p99 < 1 s',
+      measured:
+        `p50 ${result.p50?.toFixed(0)} ms, p99 ${result.p99?.toFixed(0)} ms, ${result.received} of ${result.expected} raised` +
+        `${result.falseAlerts ? `, ${result.falseAlerts} raised early` : ''}${result.failures ? `, ${result.failures} posts failed` : ''}`,
+      met: result.p99 < 1000 && missing === 0 && result.falseAlerts === 0 && result.failures === 0,
+    },
+  ];
+}
+
 /** Runs every live-twin measurement on its own cluster and api; returns one row per target. */
 export async function runIngestBench(): Promise<BenchRow[]> {
   const stack = await startBenchStack();
   try {
     // Quietest first: the latency on a fresh cluster, then the week trend, then the bulk ingest.
     const latency = await latencyRows(stack);
+    const alerts = await alertRows(stack);
     const series = await seriesRows(stack);
-    return [...(await ingestRows(stack)), ...series, ...latency];
+    return [...(await ingestRows(stack)), ...series, ...latency, ...alerts];
   } finally {
     await stack.stop();
   }

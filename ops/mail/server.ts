@@ -5,6 +5,8 @@ import { SMTPServer } from 'smtp-server';
 
 export interface MailServer {
   port: number;
+  /** Messages accepted but not stored again because their Message-ID was already captured. */
+  readonly repeatsDropped: number;
   close(): Promise<void>;
 }
 
@@ -19,6 +21,7 @@ const addresses = (field: AddressObject | AddressObject[] | undefined): string[]
  */
 export async function startMailServer(options: { port: number; databaseUrl: string }): Promise<MailServer> {
   const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 2 });
+  let repeatsDropped = 0;
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS', 'AUTH'],
@@ -30,8 +33,10 @@ export async function startMailServer(options: { port: number; databaseUrl: stri
         .then(async (mail) => {
           const to = addresses(mail.to);
           const envelopeTo = session.envelope.rcptTo.map((r) => r.address);
-          await pool.query(
-            `INSERT INTO dev_mail (message_id, from_address, to_addresses, subject, text, html) VALUES ($1, $2, $3, $4, $5, $6)`,
+          // A sender that retries after a lost reply repeats the Message-ID: store the message once.
+          const stored = await pool.query(
+            `INSERT INTO dev_mail (message_id, from_address, to_addresses, subject, text, html)
+             VALUES ($1, $2, $3, $4, $5, $6) ON CONFLICT DO NOTHING`,
             [
               mail.messageId ?? null,
               addresses(mail.from)[0] ?? null,
@@ -41,6 +46,7 @@ export async function startMailServer(options: { port: number; databaseUrl: stri
               typeof mail.html === 'string' ? mail.html : null,
             ],
           );
+          if (stored.rowCount === 0) repeatsDropped++;
           callback();
         })
         .catch((error: Error) => callback(error));
@@ -49,6 +55,9 @@ export async function startMailServer(options: { port: number; databaseUrl: stri
   await new Promise<void>((resolve) => server.listen(options.port, '127.0.0.1', resolve));
   return {
     port: (server.server.address() as AddressInfo).port,
+    get repeatsDropped() {
+      return repeatsDropped;
+    },
     close: async () => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await pool.end();

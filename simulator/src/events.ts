@@ -44,7 +44,26 @@ export interface ClientToServerEvents {
   'area:unwatch': (payload: { areaId: string }, ack?: (result: WatchAck) => void) => void;
 }
 
+/**
+ * An alert as the api's REST answers carry it (api/src/contracts/alerts.ts, AlertSchema); the
+ * fields every listener relies on are named here.
+ */
+export interface AlertObject {
+  id: string;
+  number: number;
+  loopId: string;
+  area: string;
+  state: string;
+  priority: number;
+  active: boolean;
+  [field: string]: unknown;
+}
+
 export interface ServerToClientEvents {
   'twin:sample': (sample: TwinSample) => void;
   'loop:status': (change: LoopStatusChange) => void;
+  /** A new alert (to the alerts room, which every signed-in socket joins). */
+  'alert:raised': (alert: AlertObject) => void;
+  /** An alert changed state, cleared, re-raised, escalated (to the alerts room). */
+  'alert:updated': (alert: AlertObject) => void;
 }

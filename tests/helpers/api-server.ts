@@ -7,10 +7,13 @@ import { loadConfig } from '../../api/src/config/config.js';
 import { createDb } from '../../api/src/db/knex.js';
 import { createTwinPublisher } from '../../api/src/realtime/publisher.js';
 import { createRealtime } from '../../api/src/realtime/realtime.js';
+import { startAlertWorkers, type AlertWorkers } from '../../api/src/workers/alert-workers.js';
 import type { StackInfo } from './test-env.js';
 
 export interface RunningApi {
   url: string;
+  /** The alert workers (mail sender, sweep), unless ALERT_WORKERS was 'false'. */
+  workers: AlertWorkers | null;
   close(): Promise<void>;
 }
 
@@ -37,11 +40,14 @@ export async function startApi(stack: StackInfo, env: Record<string, string> = {
   const server = http.createServer(app);
   const realtime = createRealtime(server, { config, db, pool, logger, publisher });
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const workers = config.ALERT_WORKERS ? startAlertWorkers({ db, config, logger, publisher }) : null;
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   return {
     url,
+    workers,
     close: async () => {
       server.closeAllConnections();
+      await workers?.stop();
       await realtime.close();
       await db.destroy();
       await pool.end();

@@ -1,3 +1,4 @@
+import { announceRevocation } from '../realtime/access-revocation.js';
 import { Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import type { Config } from '../config/config.js';
@@ -59,6 +60,8 @@ export function createAuthRouter(deps: {
       throw new AppError(403, 'csrf_invalid', 'Missing or invalid CSRF token: send the x-csrf-token header.');
     }
     if (user) await recordAudit(db, { actor: user, action: 'user.signed_out', targetType: 'user', targetId: user.id });
+    // the sockets this browser session opened close with it
+    if (req.authMethod === 'session') await announceRevocation(db, { sessionId: req.sessionID });
     await new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
     await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
     res.clearCookie(SESSION_COOKIE);

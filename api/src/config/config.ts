@@ -30,6 +30,13 @@ const ConfigSchema = z.object({
   INGEST_FUTURE_TOLERANCE_S: z.coerce.number().min(0).default(60),
   INGEST_MAX_AGE_DAYS: z.coerce.number().positive().default(30),
   IMPORT_MAX_FILE_MB: z.coerce.number().positive().max(4096).default(200),
+  /** The api's background work: mail outbox sender, shelve expiry, escalation, stale rules. */
+  ALERT_WORKERS: flag.default(true),
+  ALERT_SWEEP_INTERVAL_MS: z.coerce.number().int().min(50).default(5000),
+  MAIL_POLL_INTERVAL_MS: z.coerce.number().int().min(50).default(1000),
+  /** First retry after an SMTP failure; doubles per attempt up to MAIL_RETRY_MAX_MS. */
+  MAIL_RETRY_BASE_MS: z.coerce.number().int().min(10).default(5000),
+  MAIL_RETRY_MAX_MS: z.coerce.number().int().min(10).default(300_000),
 });
 
 export type Config = Omit<z.infer<typeof ConfigSchema>, 'PUBLIC_URL'> & { PUBLIC_URL: string };

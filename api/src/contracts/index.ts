@@ -4,3 +4,4 @@ export * from './errors.js';
 export * from './registry.js';
 export * from './ingest.js';
 export * from './twin.js';
+export * from './alerts.js';

@@ -18,6 +18,7 @@ export function createTtlCache<K, V>(ttlMs: number, maxEntries = 10_000) {
       if (entries.size >= maxEntries && !entries.has(key)) entries.delete(entries.keys().next().value as K);
       entries.set(key, { value, expires: Date.now() + ttlMs * (1 - Math.random() / 2) });
     },
+    delete: (key: K) => entries.delete(key),
     clear: () => entries.clear(),
   };
 }

@@ -1,4 +1,5 @@
-import { areaRoom, loopRoom, type LoopStatusChange, type TwinSample } from '@shadowloop/simulator/events';
+import { ALERTS_ROOM, areaRoom, loopRoom, type LoopStatusChange, type TwinSample } from '@shadowloop/simulator/events';
+import type { Alert } from '../contracts/alerts.js';
 import type { RealtimeServer } from './realtime-types.js';
 
 /** What the api's services send to watching browsers (through every api process, by the adapter). */
@@ -7,6 +8,10 @@ export interface TwinPublisher {
   sample(sample: TwinSample): void;
   /** A loop's tracking status changed, to its area's room. */
   statusChanged(change: LoopStatusChange): void;
+  /** A new alert, to every signed-in socket (the alerts room). */
+  alertRaised(alert: Alert): void;
+  /** An alert changed (state, clear, re-raise, escalation), to the alerts room. */
+  alertUpdated(alert: Alert): void;
 }
 
 /**
@@ -24,6 +29,12 @@ export function createTwinPublisher(): TwinPublisher & { attach(io: RealtimeServ
     },
     statusChanged: (change) => {
       io?.to(areaRoom(change.area)).emit('loop:status', change);
+    },
+    alertRaised: (alert) => {
+      io?.to(ALERTS_ROOM).emit('alert:raised', alert);
+    },
+    alertUpdated: (alert) => {
+      io?.to(ALERTS_ROOM).emit('alert:updated', alert);
     },
   };
 }

@@ -5,6 +5,8 @@ import type { SignedInUser } from '../auth/user.js';
 /** Per-socket data: the person behind the connection. */
 export interface SocketData {
   user: SignedInUser;
+  /** How it signed in: the session's id, or the access token's id. */
+  credential: { kind: 'session'; sessionId: string } | { kind: 'token'; tokenId: string };
 }
 
 // eslint-disable-next-line @typescript-eslint/no-empty-object-type -- no server-to-server events

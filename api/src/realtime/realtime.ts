@@ -7,6 +7,7 @@ import type { Config } from '../config/config.js';
 import type { Db } from '../db/knex.js';
 import type { createTwinPublisher } from './publisher.js';
 import type { RealtimeServer } from './realtime-types.js';
+import { listenForRevocations } from './access-revocation.js';
 import { authenticateSockets } from './socket-auth.js';
 import { registerWatchHandlers } from './watch-handlers.js';
 
@@ -40,10 +41,12 @@ export function createRealtime(server: http.Server, deps: RealtimeDeps) {
   authenticateSockets(io, deps);
   io.on('connection', (socket) => registerWatchHandlers(socket, deps.db));
   deps.publisher.attach(io);
+  const revocations = listenForRevocations(io, adapterPool, deps.logger);
   return {
     io,
     async close(): Promise<void> {
       deps.publisher.attach(null);
+      await revocations.stop();
       await io.close();
       await adapterPool.end();
     },

@@ -9,9 +9,10 @@ import type { Db } from '../db/knex.js';
 import { useToken } from '../modules/access-tokens/access-tokens.repository.js';
 import { INGEST_TOKEN_PREFIX } from '../modules/ingest-sources/ingest-sources.service.js';
 import { findUserById } from '../modules/users/users.repository.js';
+import { sessionRoom, tokenRoom, userRoom } from './access-revocation.js';
 import type { RealtimeServer } from './realtime-types.js';
 
-type EngineRequest = IncomingMessage & { _query?: Record<string, string>; user?: SignedInUser };
+type EngineRequest = IncomingMessage & { _query?: Record<string, string>; user?: SignedInUser; sessionID?: string };
 type EngineMiddleware = (req: EngineRequest, res: ServerResponse, next: (error?: unknown) => void) => void;
 
 /** Runs an Express middleware on the handshake request only (later polling requests carry a sid). */
@@ -22,11 +23,13 @@ const onHandshake =
     else next();
   };
 
-async function userOfToken(db: Db, token: unknown): Promise<SignedInUser | undefined> {
+async function userOfToken(db: Db, token: unknown): Promise<{ user: SignedInUser; tokenId: string } | undefined> {
   if (typeof token !== 'string' || !token || token.startsWith(INGEST_TOKEN_PREFIX)) return undefined;
   const owner = await useToken(db, token);
   const user = owner && (await findUserById(db, owner.userId));
-  return user ? { id: user.id, email: user.email, name: user.name, roles: user.roles } : undefined;
+  return user
+    ? { user: { id: user.id, email: user.email, name: user.name, roles: user.roles }, tokenId: owner.tokenId }
+    : undefined;
 }
 
 const refusal = () =>
@@ -45,14 +48,28 @@ export function authenticateSockets(io: RealtimeServer, deps: { config: Config; 
   io.engine.use(onHandshake(passport.initialize()));
   io.engine.use(onHandshake(passport.session()));
   io.use((socket, next) => {
-    const sessionUser = (socket.request as EngineRequest).user;
+    const request = socket.request as EngineRequest;
+    const sessionUser = request.user;
     const resolve = sessionUser
-      ? Promise.resolve(sessionUser)
-      : userOfToken(deps.db, (socket.handshake.auth as { token?: unknown }).token);
+      ? Promise.resolve({
+          user: sessionUser,
+          credential: { kind: 'session', sessionId: request.sessionID ?? '' } as const,
+        })
+      : userOfToken(deps.db, (socket.handshake.auth as { token?: unknown }).token).then(
+          (found) => found && { user: found.user, credential: { kind: 'token', tokenId: found.tokenId } as const },
+        );
     resolve.then(
-      (user) => {
-        if (!user) return next(refusal());
-        socket.data.user = user;
+      (found) => {
+        if (!found) return next(refusal());
+        socket.data.user = found.user;
+        socket.data.credential = found.credential;
+        // rooms by credential and person, so that revoking either closes this socket (access-revocation.ts)
+        void socket.join([
+          userRoom(found.user.id),
+          found.credential.kind === 'session'
+            ? sessionRoom(found.credential.sessionId)
+            : tokenRoom(found.credential.tokenId),
+        ]);
         next();
       },
       (error: Error) => next(error),

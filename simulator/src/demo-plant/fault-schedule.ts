@@ -19,12 +19,13 @@ export const DEMO_CYCLE_S = 1800;
 
 /**
  * Three minutes of a healthy plant first, so that a fresh start shows every loop in step; then
- * the aeration diffusers foul, a storage level transmitter drifts, the digester's hot-water valve
- * sticks and the chlorine analyser freezes, overlapping, each repaired after a while.
+ * a storage level transmitter drifts (the quickest to raise an alert, so a fresh start shows one
+ * within five minutes), the aeration diffusers foul, the digester's hot-water valve sticks and the
+ * chlorine analyser freezes, overlapping, each repaired after a while.
  */
 export const FAULT_SCHEDULE: ScheduledFault[] = [
-  { kind: 'diffuser_fouling', startS: 180, rampS: 240, endS: 900 },
-  { kind: 'transmitter_drift', startS: 420, rampS: 300, endS: 780 },
+  { kind: 'transmitter_drift', startS: 180, rampS: 300, endS: 540 },
+  { kind: 'diffuser_fouling', startS: 420, rampS: 240, endS: 1140 },
   { kind: 'sticking_valve', startS: 600, rampS: 0, endS: 1200 },
   { kind: 'frozen_analyser', startS: 840, rampS: 0, endS: 1500 },
 ];

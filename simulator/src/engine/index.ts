@@ -15,6 +15,15 @@ export {
 } from './modes.js';
 export { DEFECTIVE_CONDITION } from './eigen.js';
 export { modalDecomposition, type ModalContribution } from './modal-decomposition.js';
+export {
+  residualDirection,
+  MOVING_SIGNAL_SHARE,
+  PROCESS_MODE_SHARE,
+  SENSOR_SIGNAL_SHARE,
+  type ResidualDirectionInput,
+  type ResidualDirectionResult,
+  type ResidualPointer,
+} from './residual-direction.js';
 export { matrixExponential } from './expm.js';
 export { discretizeZoh, type DiscreteModel } from './zoh.js';
 export { controllabilityRank, observabilityRank, RANK_RELATIVE_TOLERANCE } from './structure.js';

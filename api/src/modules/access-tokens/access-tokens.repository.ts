@@ -48,11 +48,11 @@ export async function revokeToken(db: Db, id: string) {
 }
 
 /** Resolves a presented token to its owner and records its use; undefined when unknown or revoked. */
-export async function useToken(db: Db, token: string): Promise<{ userId: string } | undefined> {
+export async function useToken(db: Db, token: string): Promise<{ userId: string; tokenId: string } | undefined> {
   const [row] = await db('access_tokens')
     .where({ token_hash: hashToken(token) })
     .whereNull('revoked_at')
     .update({ last_used_at: db.fn.now() })
-    .returning<{ user_id: string }[]>('user_id');
-  return row && { userId: row.user_id };
+    .returning<{ user_id: string; id: string }[]>(['user_id', 'id']);
+  return row && { userId: row.user_id, tokenId: row.id };
 }

@@ -1,3 +1,4 @@
+import { announceRevocation } from '../../realtime/access-revocation.js';
 import type { SignedInUser } from '../../auth/user.js';
 import type { Db } from '../../db/knex.js';
 import { forbidden, notFound } from '../../http/errors.js';
@@ -35,6 +36,7 @@ export async function revokeAccessToken(db: Db, user: SignedInUser, id: string) 
     throw forbidden('Only the owner or an administrator can revoke this token.');
   await db.transaction(async (trx) => {
     await revokeToken(trx, id);
+    await announceRevocation(trx, { tokenId: id });
     await recordAudit(trx, {
       actor: user,
       action: 'access_token.revoked',

@@ -10,6 +10,7 @@ import type { Db } from '../../db/knex.js';
 import { conflict, notFound } from '../../http/errors.js';
 import { isUuid } from '../../http/params.js';
 import { recordAudit } from '../audit/audit.repository.js';
+import { insertDefaultRules } from '../drift-rules/default-rules.js';
 import { assertLoopConsistent, lockedFieldChanges } from './loop-checks.js';
 import {
   countVersions,
@@ -40,6 +41,7 @@ export async function createLoop(
   await assertLoopConsistent(db, body);
   const id = await db.transaction(async (trx) => {
     const loopId = await insertLoop(trx, body, actor.id);
+    await insertDefaultRules(trx, loopId, actor.id);
     await recordAudit(trx, {
       actor,
       action: 'loop.created',

@@ -2,7 +2,10 @@ import type { Knex } from 'knex';
 import type { SignedInUser } from '../../auth/user.js';
 import type { Db } from '../../db/knex.js';
 import { conflict } from '../../http/errors.js';
+import type { TwinPublisher } from '../../realtime/publisher.js';
 import { recordAudit } from '../audit/audit.repository.js';
+import { publishAlertChanges, type AlertChange } from '../alerts/alerts.service.js';
+import { checkActiveModel } from '../alerts/model-alert.js';
 import { findActiveVersionId, findVersion, updateVersion } from './model-versions.repository.js';
 import { changeVersion, describeVersion, requireStatus } from './version-change.js';
 
@@ -32,8 +35,9 @@ const rethrowSecondActive = (error: { code?: string; constraint?: string }): nev
  * needs a fresh review. The loop row lock queues concurrent activations; the partial unique index
  * is the last guard.
  */
-export function activateVersion(db: Db, actor: SignedInUser, id: string) {
-  return changeVersion(db, actor, id, 'activated', async (trx, version) => {
+export async function activateVersion(db: Db, actor: SignedInUser, id: string, publisher?: TwinPublisher) {
+  let modelAlert: AlertChange[] = [];
+  const activated = await changeVersion(db, actor, id, 'activated', async (trx, version) => {
     requireStatus(version, ['approved'], 'activated');
     const activeId = await findActiveVersionId(trx, version.loopId);
     if (activeId !== version.approvedAgainstVersionId) {
@@ -64,8 +68,12 @@ export function activateVersion(db: Db, actor: SignedInUser, id: string) {
       rethrowSecondActive,
     );
     await notifyActiveChanged(trx, version.loopId, id);
+    // the model warning: an unstable active version raises the loop's `model` alert, a sound one clears it
+    modelAlert = await checkActiveModel(trx, version.loopId, id);
     return { replacedVersionNumber: previous?.number ?? null, cautionsAcknowledged: true };
   });
+  if (publisher) await publishAlertChanges(db, publisher, modelAlert);
+  return activated;
 }
 
 async function versionLabel(trx: Knex.Transaction, versionId: string | null): Promise<string> {

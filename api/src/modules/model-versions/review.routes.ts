@@ -8,11 +8,12 @@ import {
 } from '../../contracts/registry.js';
 import type { Db } from '../../db/knex.js';
 import type { RouteTable } from '../../http/route.js';
+import type { TwinPublisher } from '../../realtime/publisher.js';
 import { activateVersion } from './activation.service.js';
 import { approveVersion, rejectVersion, retireVersion, submitVersion } from './review.service.js';
 
 /** The review flow: draft → in_review → approved (or rejected) → active → retired. */
-export function registerReviewRoutes(routes: RouteTable, db: Db): void {
+export function registerReviewRoutes(routes: RouteTable, db: Db, publisher?: TwinPublisher): void {
   const action = { method: 'post', access: ['engineer'], tag: 'model versions', response: ModelVersionSchema } as const;
   const id = (params: Record<string, unknown>) => String(params.id);
 
@@ -54,7 +55,7 @@ export function registerReviewRoutes(routes: RouteTable, db: Db): void {
       summary:
         'Make an approved version the twin of its loop; the previous active version is retired; 409 when the active version changed since approval',
     },
-    ({ user, req }) => activateVersion(db, user, id(req.params)),
+    ({ user, req }) => activateVersion(db, user, id(req.params), publisher),
   );
 
   routes.add(

@@ -9,7 +9,9 @@ import { requireRecentLiveLoop, type LiveLoop } from './live-loop.js';
 import type { PartitionKeeper } from './partitions.js';
 import { checkReading, type CheckedReading, type ReadingRules } from './reading-checks.js';
 import { insertScoredReadings } from './readings.repository.js';
+import { publishAlertChanges } from '../alerts/alerts.service.js';
 import { announceBatch } from './announce.js';
+import { checkDrift } from './drift-check.js';
 import { utcDay } from './sample-grid.js';
 
 export interface IngestDeps {
@@ -51,8 +53,9 @@ function sortBatch(items: unknown[], rules: ReadingRules) {
 
 /**
  * Stores a batch of readings: each is checked and slotted, the good ones are inserted once per slot,
- * scored against the twin's predictions and folded into the loop's tracking, all in one
- * transaction; then the newest sample (and a status change) goes out to watching browsers.
+ * scored against the twin's predictions, folded into the loop's tracking and judged by the loop's
+ * drift rules (raising or clearing alerts, mail queued in the outbox), all in one transaction; then
+ * the newest sample, a status change and alert changes go out to watching browsers.
  */
 export async function ingestReadings(
   deps: IngestDeps,
@@ -72,13 +75,14 @@ export async function ingestReadings(
       { loopId: target.id, inputs: target.inputs, outputs: target.outputs, sourceId: principal?.sourceId ?? null },
       good,
     );
-    const after = foldReadings(before, target, stored);
-    if (stored.length) {
-      await saveTracking(trx, target.id, after);
-      await forgetTrendMinutes(trx, target, stored[0].slotMs, stored[stored.length - 1].slotMs);
-    }
-    return { before, after, stored };
+    if (!stored.length) return { before, after: before, stored, changes: [] };
+    const folded = foldReadings(before, target, stored);
+    const { tracking: after, changes } = await checkDrift(trx, target, before, folded, stored, new Date(nowMs));
+    await saveTracking(trx, target.id, after);
+    await forgetTrendMinutes(trx, target, stored[0].slotMs, stored[stored.length - 1].slotMs);
+    return { before, after, stored, changes };
   });
   if (outcome.stored.length) announceBatch(deps.publisher, target, outcome, nowMs);
+  if (outcome.changes.length) await publishAlertChanges(deps.db, deps.publisher, outcome.changes);
   return { accepted: outcome.stored.length, duplicates: duplicates + good.length - outcome.stored.length, rejected };
 }

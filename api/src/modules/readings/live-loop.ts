@@ -7,6 +7,10 @@ import { createTtlCache } from '../../lib/ttl-cache.js';
 export interface LiveLoop {
   id: string;
   tag: string;
+  name: string;
+  /** Alerts are recorded but nobody is called while the loop is in maintenance. */
+  maintenance: boolean;
+  outputSignals: { name: string; unit: string }[];
   area: string;
   samplePeriodS: number;
   inputs: number;
@@ -19,6 +23,9 @@ export interface LiveLoop {
 type Raw = {
   id: string;
   tag: string;
+  name: string;
+  maintenance: boolean;
+  output_signals: { name: string; unit: string }[];
   area_id: string;
   sample_period_s: number;
   inputs: number;
@@ -46,6 +53,9 @@ export async function findLiveLoop(db: Db, loopId: string): Promise<LiveLoop | u
     .first(
       'l.id',
       'l.tag',
+      'l.name',
+      'l.maintenance',
+      'l.outputs as output_signals',
       'l.area_id',
       'l.sample_period_s',
       'l.stale_after_samples',
@@ -58,6 +68,9 @@ export async function findLiveLoop(db: Db, loopId: string): Promise<LiveLoop | u
     row && {
       id: row.id,
       tag: row.tag,
+      name: row.name,
+      maintenance: row.maintenance,
+      outputSignals: row.output_signals,
       area: row.area_id,
       samplePeriodS: row.sample_period_s,
       inputs: row.inputs,
@@ -82,6 +95,11 @@ export async function requireLiveLoop(db: Db, loopId: string): Promise<LiveLoop>
  */
 export const LIVE_LOOP_TTL_MS = 5000;
 const recent = createTtlCache<string, LiveLoop>(LIVE_LOOP_TTL_MS);
+
+/** After a change of the loop (maintenance, band, stale limit), so this process sees it at once. */
+export function forgetLiveLoop(loopId: string): void {
+  recent.delete(loopId);
+}
 
 export async function requireRecentLiveLoop(db: Db, loopId: string): Promise<LiveLoop> {
   const known = recent.get(loopId);

@@ -1,4 +1,5 @@
 import type { TrackingStatus } from '@shadowloop/simulator/events';
+import type { RuleStates } from '../drift-rules/rule-runtime.js';
 import {
   addResidual,
   emptyStatistics,
@@ -15,6 +16,8 @@ export interface TrackingState {
   stats: ResidualStatistics;
   lastResidual: number[] | null;
   worstBandFraction: number | null;
+  /** The drift rules' detector states (loop_tracking.rule_state), by rule id. */
+  ruleStates: RuleStates;
 }
 
 /** A stored reading with its residual against the twin's prediction for its slot, when there was one. */

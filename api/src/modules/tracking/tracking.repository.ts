@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { TrackingStatus } from '@shadowloop/simulator/events';
 import type { Db } from '../../db/knex.js';
+import type { RuleStates } from '../drift-rules/rule-runtime.js';
 import type { TrackingState } from './tracking-fold.js';
 
 type Raw = {
@@ -12,6 +13,7 @@ type Raw = {
   residual_m2: number[] | null;
   last_residual: number[] | null;
   worst_band_fraction: number | null;
+  rule_state: RuleStates | null;
 };
 
 const ms = (d: Date | null) => (d ? d.getTime() : null);
@@ -24,6 +26,7 @@ const toState = (r: Raw): TrackingState => ({
   stats: { count: Number(r.residual_count), mean: r.residual_mean ?? [], m2: r.residual_m2 ?? [] },
   lastResidual: r.last_residual,
   worstBandFraction: r.worst_band_fraction,
+  ruleStates: r.rule_state ?? {},
 });
 
 export async function readTracking(db: Db, loopId: string): Promise<TrackingState | undefined> {
@@ -56,6 +59,7 @@ export async function saveTracking(trx: Db, loopId: string, s: TrackingState): P
       residual_m2: s.stats.m2,
       last_residual: s.lastResidual,
       worst_band_fraction: s.worstBandFraction,
+      rule_state: JSON.stringify(s.ruleStates),
       updated_at: trx.fn.now(),
     });
 }

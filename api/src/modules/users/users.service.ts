@@ -1,3 +1,4 @@
+import { announceRevocation } from '../../realtime/access-revocation.js';
 import type { SignedInUser } from '../../auth/user.js';
 import type { Role } from '../../contracts/roles.js';
 import type { Db } from '../../db/knex.js';
@@ -22,6 +23,7 @@ export async function setUserRoles(db: Db, actor: SignedInUser, userId: string, 
     const before = await findUserById(trx, userId);
     if (!before) throw notFound(`User ${userId}`);
     await replaceRoles(trx, userId, roles);
+    await announceRevocation(trx, { userId });
     await recordAudit(trx, {
       actor,
       action: 'user.roles_changed',

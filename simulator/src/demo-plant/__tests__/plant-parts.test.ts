@@ -64,7 +64,7 @@ describe('the fault script', () => {
   it('keeps the plant healthy for about the first three minutes, then starts the first fault', () => {
     for (let t = 0; t < 180; t += 5) expect(Object.values(faultLevels(t)).every((level) => level === 0)).toBe(true);
     expect(Math.min(...FAULT_SCHEDULE.map((f) => f.startS))).toBe(180);
-    expect(faultLevels(181).diffuser_fouling).toBeGreaterThan(0);
+    expect(faultLevels(181).transmitter_drift).toBeGreaterThan(0);
   });
 
   it('ramps a fault up linearly, holds it, repairs it, and repeats every cycle', () => {

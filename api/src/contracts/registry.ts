@@ -78,6 +78,8 @@ export const LoopSchema = z.object({
   lastReadingAt: z.string().nullable(),
   worstBandFraction: z.number().nullable(),
   activeVersionId: z.uuid().nullable(),
+  /** In maintenance, drift rules still judge the readings and raises are recorded, but nobody is called. */
+  maintenance: z.boolean(),
   activeVersionNumber: z.number().int().nullable(),
   draftCount: z.number().int(),
   inReviewCount: z.number().int(),

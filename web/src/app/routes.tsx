@@ -11,13 +11,14 @@ import { RequireRole } from '../features/session/components/require-role';
 import { signedInUserLoader, warmCacheLoader } from './loaders';
 import { adminRoutes } from './routes/admin/admin-routes';
 import { AboutPage } from './routes/about';
-import { AlertsPage } from './routes/alerts';
+import { alertRoutes } from './routes/alerts/alerts-routes';
 import { FloorPage } from './routes/floor';
 import { loopRoutes } from './routes/loops/loop-routes';
 import { modelRoutes } from './routes/models/models-routes';
-import { RotaPage } from './routes/rota';
 import { SignInPage } from './routes/signin';
 import { MyAccessTokensPage } from './routes/tokens';
+
+const rotaPage = async () => ({ Component: (await import('./routes/rota/rota-page')).RotaPage });
 
 export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   return [
@@ -42,8 +43,8 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                   element: <RequireRole role={sectionRole('models')} />,
                   children: modelRoutes(queryClient),
                 },
-                { path: 'alerts', element: <AlertsPage /> },
-                { path: 'rota', element: <RotaPage /> },
+                { path: 'alerts', children: alertRoutes() },
+                { path: 'rota', HydrateFallback: PageLoading, lazy: rotaPage },
                 { path: 'about', element: <AboutPage /> },
                 {
                   path: 'tokens',

@@ -89,4 +89,31 @@ describe('the shared twin socket', () => {
     socket.fire('disconnect', 'io server disconnect');
     expect(socket.connect).toHaveBeenCalled();
   });
+
+  it('hands raised and updated alerts to alert watchers, which need no room of their own', () => {
+    const { socket, emitted } = fakeSocket();
+    const client = createTwinSocketClient(() => socket as unknown as TwinSocket);
+    const seen = vi.fn();
+    const stop = client.watchAlerts(seen);
+    socket.fire('connect');
+    const alert = {
+      id: 'x',
+      number: 1,
+      loopId: 'a',
+      area: 'aeration',
+      state: 'unacknowledged',
+      priority: 1,
+      active: true,
+    };
+    socket.fire('alert:raised', alert);
+    socket.fire('alert:updated', { ...alert, state: 'acknowledged' });
+    expect(seen.mock.calls).toEqual([
+      [alert, 'raised'],
+      [{ ...alert, state: 'acknowledged' }, 'updated'],
+    ]);
+    expect(emitted).toEqual([]);
+    stop();
+    socket.fire('alert:updated', alert);
+    expect(seen).toHaveBeenCalledTimes(2);
+  });
 });

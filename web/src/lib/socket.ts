@@ -2,13 +2,15 @@ import { io, type Socket } from 'socket.io-client';
 import { createRoomCounter } from './socket-rooms';
 
 import type {
+  AlertObject,
   ClientToServerEvents,
   LoopStatusChange,
   ServerToClientEvents,
   TwinSample,
 } from '@shadowloop/simulator/events';
 
-export type { LoopStatusChange, TwinSample };
+export type { AlertObject, LoopStatusChange, TwinSample };
+export type AlertEventKind = 'raised' | 'updated';
 export type TwinSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 export type ConnectionState = 'connecting' | 'live' | 'reconnecting';
 
@@ -18,6 +20,8 @@ export interface TwinSocketClient {
   watchLoop(loopId: string, onSample: (sample: TwinSample) => void): () => void;
   /** Joins the area's room and hands its loops' status changes to `onStatus`. */
   watchArea(areaId: string, onStatus: (change: LoopStatusChange) => void): () => void;
+  /** Hands `alert:raised` and `alert:updated` (the alerts room, which the server joins for every socket) to `onAlert`. */
+  watchAlerts(onAlert: (alert: AlertObject, kind: AlertEventKind) => void): () => void;
   /** Called after a dropped connection is back and its rooms are joined again: time to backfill. */
   onReconnect(listener: () => void): () => void;
   state(): ConnectionState;
@@ -42,6 +46,7 @@ export function createTwinSocketClient(connect: () => TwinSocket): TwinSocketCli
   let everConnected = false;
   const samples: Listeners<TwinSample> = new Map();
   const statuses: Listeners<LoopStatusChange> = new Map();
+  const alertListeners = new Set<(alert: AlertObject, kind: AlertEventKind) => void>();
   const reconnectListeners = new Set<() => void>();
   const stateListeners = new Set<() => void>();
   const setState = (next: ConnectionState) => {
@@ -66,6 +71,8 @@ export function createTwinSocketClient(connect: () => TwinSocket): TwinSocketCli
     socket = created;
     created.on('twin:sample', (sample) => samples.get(sample.loopId)?.forEach((listener) => listener(sample)));
     created.on('loop:status', (change) => statuses.get(change.area)?.forEach((listener) => listener(change)));
+    created.on('alert:raised', (alert) => alertListeners.forEach((listener) => listener(alert, 'raised')));
+    created.on('alert:updated', (alert) => alertListeners.forEach((listener) => listener(alert, 'updated')));
     created.on('connect', () => {
       rooms.active().forEach((room) => emitRoom(created, room, 'watch'));
       setState('live');
@@ -98,6 +105,11 @@ export function createTwinSocketClient(connect: () => TwinSocket): TwinSocketCli
         stopListening();
         release();
       };
+    },
+    watchAlerts(onAlert) {
+      ensureSocket();
+      alertListeners.add(onAlert);
+      return () => void alertListeners.delete(onAlert);
     },
     onReconnect(listener) {
       reconnectListeners.add(listener);

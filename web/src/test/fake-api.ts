@@ -43,10 +43,30 @@ export const HEALTHY = {
   },
 };
 
+export const NOBODY_ON_CALL = { at: '2025-03-01T08:00:00Z', primary: null, secondary: null, areas: [] };
+
+/** The signed-in user and what the frame asks for on every page (nobody on call, no alerts waiting). */
 export function signedInAs(roles: string[], name = 'Test Person') {
   return {
     'GET /api/v1/me': { body: { id: 'u1', email: 'person@quillmere.example', name, roles } },
     'GET /api/health': { body: HEALTHY },
     'GET /api/v1/csrf-token': { body: { token: 'csrf-1' } },
+    'GET /api/v1/oncall/now': { body: NOBODY_ON_CALL },
+    'GET /api/v1/alerts': { body: [] },
   } satisfies FakeRoutes;
+}
+
+/** The JSON body a fake route received. */
+export function bodyOf(init: RequestInit): unknown {
+  return JSON.parse(String(init.body));
+}
+
+/** The query of every request to a path, in order. */
+export function queriesTo(fetchMock: { mock: { calls: unknown[][] } }, method: string, pathname: string) {
+  return fetchMock.mock.calls
+    .filter(([input, init]) => {
+      const url = new URL(String(input), 'http://shadowloop.test');
+      return url.pathname === pathname && ((init as RequestInit | undefined)?.method ?? 'GET') === method;
+    })
+    .map(([input]) => new URL(String(input), 'http://shadowloop.test').searchParams);
 }

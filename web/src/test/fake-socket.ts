@@ -1,6 +1,8 @@
 import { afterEach } from 'vitest';
 import {
   replaceTwinSocketForTests,
+  type AlertEventKind,
+  type AlertObject,
   type LoopStatusChange,
   type TwinSample,
   type TwinSocketClient,
@@ -14,6 +16,7 @@ export function installFakeSocket() {
   const samples = new Map<string, Set<(sample: TwinSample) => void>>();
   const statuses = new Map<string, Set<(change: LoopStatusChange) => void>>();
   const reconnects = new Set<() => void>();
+  const alerts = new Set<(alert: AlertObject, kind: AlertEventKind) => void>();
   const hold = <T>(map: Map<string, Set<T>>, key: string, listener: T) => {
     const set = map.get(key) ?? new Set<T>();
     set.add(listener);
@@ -23,6 +26,10 @@ export function installFakeSocket() {
   const client: TwinSocketClient = {
     watchLoop: (loopId, onSample) => hold(samples, loopId, onSample),
     watchArea: (areaId, onStatus) => hold(statuses, areaId, onStatus),
+    watchAlerts: (onAlert) => {
+      alerts.add(onAlert);
+      return () => void alerts.delete(onAlert);
+    },
     onReconnect: (listener) => {
       reconnects.add(listener);
       return () => void reconnects.delete(listener);
@@ -37,6 +44,8 @@ export function installFakeSocket() {
     sample: (sample: TwinSample) => samples.get(sample.loopId)?.forEach((listener) => listener(sample)),
     status: (change: LoopStatusChange) => statuses.get(change.area)?.forEach((listener) => listener(change)),
     reconnect: () => reconnects.forEach((listener) => listener()),
+    alert: (alert: AlertObject, kind: AlertEventKind = 'updated') =>
+      alerts.forEach((listener) => listener(alert, kind)),
   };
 }
 

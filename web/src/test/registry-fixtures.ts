@@ -22,6 +22,7 @@ export function fakeLoop(overrides: Partial<Loop> = {}): Loop {
     lastReadingAt: null,
     worstBandFraction: null,
     activeVersionId: null,
+    maintenance: false,
     activeVersionNumber: null,
     draftCount: 0,
     inReviewCount: 0,

@@ -33,6 +33,7 @@ type Raw = {
   outputs: Signal[];
   operating_point: OperatingPoint;
   time_zone: string;
+  maintenance: boolean;
   created_at: Date;
   updated_at: Date;
   active_version_id: string | null;
@@ -76,6 +77,7 @@ const toLoop = (r: Raw): Loop => ({
   timeZone: r.time_zone,
   ...trackingFieldsOf(r),
   activeVersionId: r.active_version_id,
+  maintenance: r.maintenance,
   activeVersionNumber: r.active_version_number,
   draftCount: r.draft_count,
   inReviewCount: r.in_review_count,

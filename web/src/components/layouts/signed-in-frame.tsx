@@ -1,5 +1,8 @@
 import type { ReactNode } from 'react';
 import { Outlet } from 'react-router';
+import { WaitingAlertsBanner } from '../../features/alerts/components/waiting-alerts-banner';
+import { useAlertUpdates } from '../../features/alerts/hooks/use-alert-updates';
+import { hasRole } from '../../features/session/roles';
 import { useSignedInUser } from '../../features/session/use-signed-in-user';
 import { FooterCaution } from './footer-caution';
 import { MainNav } from './main-nav';
@@ -23,8 +26,15 @@ export function FrameGrid({ top, nav, children }: { top: ReactNode; nav: ReactNo
 
 export function SignedInFrame() {
   const user = useSignedInUser();
+  useAlertUpdates();
+  const top = (
+    <div className="col-span-2">
+      <TopStrip user={user} />
+      {hasRole(user, 'oncall') ? <WaitingAlertsBanner /> : null}
+    </div>
+  );
   return (
-    <FrameGrid top={<TopStrip user={user} />} nav={<MainNav user={user} />}>
+    <FrameGrid top={top} nav={<MainNav user={user} />}>
       <Outlet />
     </FrameGrid>
   );

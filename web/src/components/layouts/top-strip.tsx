@@ -1,7 +1,9 @@
 import { Link } from 'react-router';
 import { PLANT_NAME, PRODUCT_NAME } from '../../config/product';
+import { WaitingCountLink } from '../../features/alerts/components/waiting-count-link';
 import { HealthDot } from '../../features/health/components/health-dot';
-import type { SignedInUser } from '../../features/session/roles';
+import { OnCallNowLink } from '../../features/rota/components/on-call-now-link';
+import { hasRole, type SignedInUser } from '../../features/session/roles';
 import { ShadowloopMark } from '../ui/shadowloop-mark';
 import { UserMenu } from './user-menu';
 
@@ -14,9 +16,8 @@ export function TopStrip({ user }: { user: SignedInUser }) {
       </Link>
       <span className="border-l border-rule pl-4 text-sm font-medium">{PLANT_NAME}</span>
       <div className="ml-auto flex items-center gap-3">
-        <Link to="/rota" className="text-sm hover:underline">
-          On call now: — <span className="text-ink/70">(nobody is on the rota yet)</span>
-        </Link>
+        <OnCallNowLink />
+        {hasRole(user, 'oncall') ? <WaitingCountLink /> : null}
         <HealthDot />
         <UserMenu user={user} />
       </div>

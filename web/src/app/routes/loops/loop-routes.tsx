@@ -9,11 +9,14 @@ import { EditLoopPage } from './edit-loop';
 import { ImportReadingsPage } from './import-readings';
 import { LoopLayout } from './loop-layout';
 import { LoopLogTab } from './loop-log';
-import { LoopAlertsTab, LoopRulesTab } from './loop-placeholders';
 import { LoopTrendTab } from './loop-trend';
 import { LoopTwinModelTab } from './loop-twin-model';
 import { LoopsPage } from './loops-page';
 import { RegisterLoopPage } from './register-loop';
+
+/** The alert and rule tabs (forms, the alert table) load when first opened. */
+const alertsTab = async () => ({ Component: (await import('./loop-alerts')).LoopAlertsTab });
+const rulesTab = async () => ({ Component: (await import('./loop-rules')).LoopRulesTab });
 
 export function loopRoutes(queryClient: QueryClient): RouteObject[] {
   return [
@@ -46,8 +49,8 @@ export function loopRoutes(queryClient: QueryClient): RouteObject[] {
       children: [
         { index: true, element: <LoopTrendTab /> },
         { path: 'model', element: <LoopTwinModelTab /> },
-        { path: 'alerts', element: <LoopAlertsTab /> },
-        { path: 'rules', element: <LoopRulesTab /> },
+        { path: 'alerts', HydrateFallback: PageLoading, lazy: alertsTab },
+        { path: 'rules', HydrateFallback: PageLoading, lazy: rulesTab },
         { path: 'log', element: <LoopLogTab /> },
       ],
     },

@@ -1,0 +1,26 @@
+import { queryOptions } from '@tanstack/react-query';
+import { getSeries } from '../../twin/api/get-series';
+import { alertKeys } from './alert-keys';
+
+/** Samples shown before and after the raise. */
+export const SNAPSHOT_BEFORE_SAMPLES = 60;
+export const SNAPSHOT_AFTER_SAMPLES = 20;
+
+export function snapshotWindow(raisedAt: string, samplePeriodS: number): { fromMs: number; toMs: number } {
+  const raisedMs = Date.parse(raisedAt);
+  const periodMs = samplePeriodS * 1000;
+  return { fromMs: raisedMs - SNAPSHOT_BEFORE_SAMPLES * periodMs, toMs: raisedMs + SNAPSHOT_AFTER_SAMPLES * periodMs };
+}
+
+/** The loop's stored series around the raise: measured and predicted, at full resolution. */
+export function alertSnapshotQueryOptions(
+  alert: { id: string; loopId: string; raisedAt: string },
+  samplePeriodS: number,
+) {
+  const { fromMs, toMs } = snapshotWindow(alert.raisedAt, samplePeriodS);
+  return queryOptions({
+    queryKey: alertKeys.snapshot(alert.id, fromMs, toMs),
+    queryFn: ({ signal }) => getSeries({ loopId: alert.loopId, fromMs, toMs, maxPoints: 400 }, signal),
+    staleTime: 60_000,
+  });
+}

@@ -1,4 +1,5 @@
 import http from 'node:http';
+import { listenForCacheNotices } from './workers/cache-notices.js';
 import { pino } from 'pino';
 import pg from 'pg';
 import { createApp } from './app.js';
@@ -29,6 +30,7 @@ const server = http.createServer(app);
 const realtime = createRealtime(server, { config, db, pool, logger, publisher });
 const stopPartitionUpkeep = partitions.startUpkeep(logger);
 const workers = config.ALERT_WORKERS ? startAlertWorkers({ db, config, logger, publisher }) : null;
+const cacheNotices = listenForCacheNotices(pool, logger);
 server.listen(config.PORT, config.HOST, () => logger.info(`api listening on ${config.PUBLIC_URL}`));
 
 let stopping = false;
@@ -39,6 +41,7 @@ async function shutdown(): Promise<void> {
   stopPartitionUpkeep();
   server.closeAllConnections();
   await workers?.stop();
+  await cacheNotices.stop();
   await realtime.close();
   await db.destroy();
   await pool.end();

@@ -72,9 +72,11 @@ export async function prepareAlertLoops(
 /**
  * Every loop posts one reading per sample period, the posts spread evenly over the period, with a
  * bridge's ingest token; readings follow the prediction with noise (sd 0.05) until the loop's fault
- * adds 0.6, so its band rule (limit 0.3, 3 samples) raises on the third faulty reading. One client
- * (a signed-in person's token) is in the alerts room. Latency: from just before the POST of that
- * third faulty reading to the arrival of the loop's alert:raised.
+ * adds 0.6, so its band rule (limit 0.3, 3 samples) raises on the third faulty reading. The loops'
+ * faults begin in turn over `periods.spread` sample periods (loop i in period healthy + i mod
+ * spread), as faults of independent loops would, not all in the same second. One client (a
+ * signed-in person's token) is in the alerts room. Latency: from just before the POST of that third
+ * faulty reading to the arrival of the loop's alert:raised.
  */
 export async function alertLatency(
   url: string,
@@ -82,7 +84,7 @@ export async function alertLatency(
   loopIds: string[],
   samplePeriodS: number,
   fromK: number,
-  periods: { healthy: number; faulty: number },
+  periods: { healthy: number; spread: number },
 ) {
   const raisingPostAt = new Map<string, number>();
   const latencies: number[] = [];
@@ -109,15 +111,15 @@ export async function alertLatency(
   const periodMs = samplePeriodS * 1000;
   // the first slot starts at the next period boundary after fromK's slot time
   const begin = performance.now() + Math.max(0, fromK * periodMs - Date.now());
-  const total = periods.healthy + periods.faulty;
+  const total = periods.healthy + periods.spread + RAISE_AFTER;
   for (let p = 0; p < total; p++) {
     const k = fromK + p;
     for (let i = 0; i < loopIds.length; i++) {
       const wait = begin + p * periodMs + (i * periodMs) / loopIds.length - performance.now();
       if (wait > 1) await new Promise((resolve) => setTimeout(resolve, wait));
-      const faulty = p >= periods.healthy;
-      const y = 0.5 + NOISE_SD * noise() + (faulty ? FAULT : 0);
-      if (p === periods.healthy + RAISE_AFTER - 1) raisingPostAt.set(loopIds[i], performance.now());
+      const onset = periods.healthy + (i % periods.spread);
+      const y = 0.5 + NOISE_SD * noise() + (p >= onset ? FAULT : 0);
+      if (p === onset + RAISE_AFTER - 1) raisingPostAt.set(loopIds[i], performance.now());
       const body = `{"readings":[{"t":"${new Date(k * periodMs).toISOString()}","u":[1],"y":[${y}]}]}`;
       pending.push(
         poster.post(`/api/v1/loops/${loopIds[i]}/readings`, body).then((r) => {

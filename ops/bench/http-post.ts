@@ -36,11 +36,13 @@ export function createPoster(baseUrl: string, token: string, maxSockets = 16) {
 }
 
 /** One readings body: `count` readings of loop slots fromK…, one input and one output each. */
-export function readingsBody(fromK: number, count: number): string {
+export function readingsBody(fromK: number, count: number, samplePeriodS = 1): string {
   const parts: string[] = [];
   for (let i = 0; i < count; i++) {
     const k = fromK + i;
-    parts.push(`{"t":"${new Date(k * 1000).toISOString()}","u":[${(k % 100) / 10}],"y":[${0.5 + (k % 7) / 100}]}`);
+    parts.push(
+      `{"t":"${new Date(k * samplePeriodS * 1000).toISOString()}","u":[${(k % 100) / 10}],"y":[${0.5 + (k % 7) / 100}]}`,
+    );
   }
   return `{"readings":[${parts.join(',')}]}`;
 }

@@ -4,6 +4,7 @@
  * throwaway PostgreSQL cluster and the api in this process (loopback only), and removes both.
  * `runIngestBench()` returns rows for ops/bench/run.ts; run directly it prints them.
  * BENCH_INGEST_SECONDS (default 60), BENCH_LATENCY_LOOPS (200), BENCH_LATENCY_SECONDS (20),
+ * BENCH_LATENCY_WIDE_LOOPS (2000), BENCH_LATENCY_WIDE_PERIOD_S (10), BENCH_LATENCY_WIDE_SECONDS (40),
  * BENCH_ALERT_LOOPS (2000), BENCH_ALERT_PERIOD_S (10).
  */
 import { pathToFileURL } from 'node:url';
@@ -94,13 +95,40 @@ async function latencyRows(stack: BenchStack): Promise<BenchRow[]> {
   ];
 }
 
+/** The same latency with 2,000 loops, at a 10 s sample period (200 posts/s from one bridge). */
+async function wideLatencyRows(stack: BenchStack): Promise<BenchRow[]> {
+  const count = setting('BENCH_LATENCY_WIDE_LOOPS', 2000);
+  const periodS = setting('BENCH_LATENCY_WIDE_PERIOD_S', 10);
+  const seconds = setting('BENCH_LATENCY_WIDE_SECONDS', 40);
+  const loops = await createBenchLoops(stack.db, count, 'BENCH-LW', periodS);
+  const bridge = await benchToken(stack.db, loops, 'bench latency, many loops');
+  const result = await sampleLatency(
+    stack.url,
+    { bridge, watcher: await personalToken(stack) },
+    loops,
+    seconds,
+    periodS,
+  );
+  const lost = result.sent - result.received;
+  return [
+    {
+      name: `reading posted → twin:sample at a watching client, ${count} loops × 1 reading per ${periodS} s (${Math.round(count / periodS)} posts/s), ${seconds} s`,
+      target: 'p99 < 500 ms',
+      measured:
+        `p50 ${result.p50?.toFixed(0)} ms, p99 ${result.p99?.toFixed(0)} ms` +
+        `${lost ? `, ${lost} of ${result.sent} not seen` : ''}${result.failures ? `, ${result.failures} posts failed` : ''}`,
+      met: result.p99 < 500 && lost === 0 && result.failures === 0,
+    },
+  ];
+}
+
 async function alertRows(stack: BenchStack): Promise<BenchRow[]> {
   const count = setting('BENCH_ALERT_LOOPS', 2000);
   const periodS = setting('BENCH_ALERT_PERIOD_S', 10);
-  const periods = { healthy: 3, faulty: 4 };
+  const periods = { healthy: 3, spread: 6 };
   const loops = await createBenchLoops(stack.db, count, 'BENCH-AL', periodS);
   const fromK = Math.ceil(Date.now() / (periodS * 1000)) + 2;
-  await prepareAlertLoops(stack.db, loops, periodS, fromK, periods.healthy + periods.faulty);
+  await prepareAlertLoops(stack.db, loops, periodS, fromK, periods.healthy + periods.spread + 3);
   const bridge = await benchToken(stack.db, loops, 'bench alerts');
   const result = await alertLatency(
     stack.url,
@@ -115,7 +143,8 @@ async function alertRows(stack: BenchStack): Promise<BenchRow[]> {
     {
       name:
         `reading posted → alert:raised at a client, ${count} loops × 1 reading per ${periodS} s ` +
-        `(${Math.round(count / periodS)} posts/s), a band fault in every loop`,
+        `(${Math.round(count / periodS)} posts/s), a band fault in every loop, onsets spread over ` +
+        `${periods.spread * periodS} s (${Math.round(count / (periods.spread * periodS))} raises/s)`,
       target: 'p99 < 1 s',
       measured:
         `p50 ${result.p50?.toFixed(0)} ms, p99 ${result.p99?.toFixed(0)} ms, ${result.received} of ${result.expected} raised` +
@@ -130,7 +159,7 @@ export async function runIngestBench(): Promise<BenchRow[]> {
   const stack = await startBenchStack();
   try {
     // Quietest first: the latency on a fresh cluster, then the week trend, then the bulk ingest.
-    const latency = await latencyRows(stack);
+    const latency = [...(await latencyRows(stack)), ...(await wideLatencyRows(stack))];
     const alerts = await alertRows(stack);
     const series = await seriesRows(stack);
     return [...(await ingestRows(stack)), ...series, ...latency, ...alerts];

@@ -25,15 +25,17 @@ async function watchAll(url: string, token: string, loopIds: string[], seen: (ke
 }
 
 /**
- * Every loop posts one reading per second, the posts spread evenly over the second, with a bridge's
- * ingest token; one client watches every loop. Latency: from just before the POST to the arrival of
- * that reading's twin:sample at the client, counted after a warm-up of WARM_UP_S seconds.
+ * Every loop posts one reading per sample period (1 s unless told), the posts spread evenly over
+ * the period, with a bridge's ingest token; one client watches every loop. Latency: from just
+ * before the POST to the arrival of that reading's twin:sample at the client, counted after a
+ * warm-up of WARM_UP_S seconds (at least one period).
  */
 export async function sampleLatency(
   url: string,
   tokens: { bridge: string; watcher: string },
   loopIds: string[],
   seconds: number,
+  samplePeriodS = 1,
 ) {
   const sentAt = new Map<string, { at: number; counted: boolean }>();
   const latencies: number[] = [];
@@ -43,17 +45,21 @@ export async function sampleLatency(
     sentAt.delete(key);
   });
   const poster = createPoster(url, tokens.bridge, 64);
-  const startK = Math.floor(Date.now() / 1000) + 2;
+  const periodMs = samplePeriodS * 1000;
+  const startK = Math.ceil(Date.now() / periodMs) + 1;
   const pending: Promise<unknown>[] = [];
   let failures = 0;
-  const begin = performance.now();
-  for (let second = 0; second < WARM_UP_S + seconds; second++) {
+  // the first slot's time, on the performance clock: readings are never posted before their slot
+  const begin = performance.now() + (startK * periodMs - Date.now());
+  const warmUp = Math.max(1, Math.ceil(WARM_UP_S / samplePeriodS));
+  const periods = warmUp + Math.ceil(seconds / samplePeriodS);
+  for (let p = 0; p < periods; p++) {
     for (let i = 0; i < loopIds.length; i++) {
-      const wait = begin + second * 1000 + (i * 1000) / loopIds.length - performance.now();
+      const wait = begin + p * periodMs + (i * periodMs) / loopIds.length - performance.now();
       if (wait > 1) await new Promise((resolve) => setTimeout(resolve, wait));
-      sentAt.set(`${loopIds[i]}:${startK + second}`, { at: performance.now(), counted: second >= WARM_UP_S });
+      sentAt.set(`${loopIds[i]}:${startK + p}`, { at: performance.now(), counted: p >= warmUp });
       pending.push(
-        poster.post(`/api/v1/loops/${loopIds[i]}/readings`, readingsBody(startK + second, 1)).then((r) => {
+        poster.post(`/api/v1/loops/${loopIds[i]}/readings`, readingsBody(startK + p, 1, samplePeriodS)).then((r) => {
           if (r.status !== 200) failures += 1;
         }),
       );
@@ -65,7 +71,7 @@ export async function sampleLatency(
   poster.close();
   const sorted = [...latencies].sort((a, b) => a - b);
   return {
-    sent: seconds * loopIds.length,
+    sent: (periods - warmUp) * loopIds.length,
     received: latencies.length,
     failures,
     p50: percentile(sorted, 50),

@@ -1,4 +1,5 @@
 import http from 'node:http';
+import { listenForCacheNotices } from '../../api/src/workers/cache-notices.js';
 import type { AddressInfo } from 'node:net';
 import pg from 'pg';
 import { pino } from 'pino';
@@ -8,6 +9,7 @@ import { createDb } from '../../api/src/db/knex.js';
 import { createTwinPublisher } from '../../api/src/realtime/publisher.js';
 import { createRealtime } from '../../api/src/realtime/realtime.js';
 import { startAlertWorkers, type AlertWorkers } from '../../api/src/workers/alert-workers.js';
+import { freePort } from '../../ops/lib/ports.js';
 import type { StackInfo } from './test-env.js';
 
 export interface RunningApi {
@@ -19,8 +21,11 @@ export interface RunningApi {
 
 /** The real api, in this process, on a free port, against the run's throwaway database. */
 export async function startApi(stack: StackInfo, env: Record<string, string> = {}): Promise<RunningApi> {
+  // the port is chosen first: links in alert e-mails are built from PUBLIC_URL
+  const port = await freePort();
   const config = loadConfig({
-    PORT: '0',
+    PORT: String(port),
+    PUBLIC_URL: `http://127.0.0.1:${port}`,
     DATABASE_URL: stack.databaseUrl,
     SESSION_SECRET: 'integration-test-session-secret-0123456789',
     OIDC_ISSUER: stack.idpIssuer,
@@ -39,8 +44,9 @@ export async function startApi(stack: StackInfo, env: Record<string, string> = {
   const app = createApp({ config, db, pool, logger, version: 'test', publisher });
   const server = http.createServer(app);
   const realtime = createRealtime(server, { config, db, pool, logger, publisher });
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  await new Promise<void>((resolve) => server.listen(port, '127.0.0.1', resolve));
   const workers = config.ALERT_WORKERS ? startAlertWorkers({ db, config, logger, publisher }) : null;
+  const cacheNotices = listenForCacheNotices(pool, logger);
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   return {
     url,
@@ -48,6 +54,7 @@ export async function startApi(stack: StackInfo, env: Record<string, string> = {
     close: async () => {
       server.closeAllConnections();
       await workers?.stop();
+      await cacheNotices.stop();
       await realtime.close();
       await db.destroy();
       await pool.end();

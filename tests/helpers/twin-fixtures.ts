@@ -90,13 +90,14 @@ export async function eventually<T>(
   read: () => T | undefined | Promise<T | undefined>,
   what: string,
   timeoutMs = 5000,
+  intervalMs = 20,
 ): Promise<T> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const value = await read();
     if (value !== undefined) return value;
     if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
-    await new Promise((resolve) => setTimeout(resolve, 20));
+    await new Promise((resolve) => setTimeout(resolve, intervalMs));
   }
 }
 

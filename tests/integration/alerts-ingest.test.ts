@@ -5,7 +5,7 @@ import type { Loop, ModelVersion } from '../../api/src/contracts/registry.js';
 import type { LoopTrackingFields } from '../../api/src/contracts/twin.js';
 import { startApi, type RunningApi } from '../helpers/api-server.js';
 import { ENGINEER, ONCALL, REVIEWER, signedIn } from '../helpers/registry-fixtures.js';
-import type { SessionClient } from '../helpers/session-client.js';
+import { tokenRequest, type SessionClient } from '../helpers/session-client.js';
 import {
   eventually,
   insertPrediction,
@@ -155,6 +155,8 @@ describe('a divergence from reading to e-mail', () => {
       { enabled: true, priority: 3, params: { afterSamples: 3 }, note: 'alerts ingest test' },
       { csrf: true },
     );
+    // the loop's tracking status turns stale at the same count
+    expect((await db('loops').where({ id: twin.loop.id }).first('stale_after_samples')).stale_after_samples).toBe(3);
     await api.workers?.sweepOnce();
     expect((await alertsOfLoop()).find((a) => a.rule === 'stale')).toBeUndefined();
     // no reading for more than 3 samples of 1 s after the newest one
@@ -170,5 +172,48 @@ describe('a divergence from reading to e-mail', () => {
       state: 'returned_unacknowledged',
       active: false,
     });
+  });
+
+  it('another api process sees a change at once: maintenance set on one, readings posted to the other are recorded, not alerted', async () => {
+    const second = await startApi(stack, { ALERT_WORKERS: 'false' });
+    try {
+      // the second process has the loop and its rules in its caches
+      await sample(0.0);
+      await tokenRequest(second.url, token, 'POST', `/api/v1/loops/${twin.loop.id}/readings`, {
+        readings: [reading(nextSlotMs - 500, [0.5], [1])],
+      });
+      const put = await oncall.request(
+        'PUT',
+        `/api/v1/loops/${twin.loop.id}/maintenance`,
+        { maintenance: true, note: 'alerts ingest test: valve work' },
+        { csrf: true },
+      );
+      expect(put.status).toBe(200);
+      await new Promise((resolve) => setTimeout(resolve, 300));
+      const openBefore = (await alertsOfLoop()).filter((a) => a.rule === 'band' && a.active).length;
+      for (const r of [0.9, 0.9, 0.9]) {
+        nextSlotMs = Math.max(nextSlotMs + PERIOD_MS, (Math.floor(Date.now() / PERIOD_MS) - 5) * PERIOD_MS);
+        await insertPrediction(db, {
+          loopId: twin.loop.id,
+          versionId: twin.version.id,
+          slotMs: nextSlotMs,
+          x: [1, 0],
+          y: [1],
+        });
+        const posted = await postReadings(second.url, token, twin.loop.id, [reading(nextSlotMs, [0.5], [1 + r])]);
+        expect(posted.body).toMatchObject({ accepted: 1 });
+      }
+      expect((await alertsOfLoop()).filter((a) => a.rule === 'band' && a.active)).toHaveLength(openBefore);
+      const suppressed = await db('alert_suppressions').where({ loop_id: twin.loop.id, rule_kind: 'band' });
+      expect(suppressed.length).toBeGreaterThan(0);
+    } finally {
+      await oncall.request(
+        'PUT',
+        `/api/v1/loops/${twin.loop.id}/maintenance`,
+        { maintenance: false, note: 'alerts ingest test: done' },
+        { csrf: true },
+      );
+      await second.close();
+    }
   });
 });

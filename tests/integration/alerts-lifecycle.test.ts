@@ -444,4 +444,21 @@ describe('model warning', () => {
     expect(after).toMatchObject({ state: 'returned_unacknowledged', active: false });
     expect(after.events.map((e) => e.kind)).toEqual(['raised', 'cleared']);
   });
+
+  it('clears the model alert when the unstable active version is retired and no version runs', async () => {
+    const unstable = {
+      A: [
+        [1.02, 0],
+        [0, 0.5],
+      ],
+      B: [[0], [0.3]],
+      C: [[1, 0]],
+    };
+    const { loop: shaky, version } = await loopWithTwin(engineer, reviewer, { area }, unstable);
+    const [warning] = await listAlerts(`loopId=${shaky.id}`);
+    expect(warning).toMatchObject({ rule: 'model', active: true });
+    const retired = await act(reviewer, version.id, 'retire', { note: 'taken out of service' });
+    expect(retired.status).toBe(200);
+    expect(await getAlert(warning.id)).toMatchObject({ state: 'returned_unacknowledged', active: false });
+  });
 });

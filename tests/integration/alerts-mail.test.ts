@@ -461,6 +461,15 @@ describe('the one-click acknowledge link', () => {
     expect(await open(oncall, token)).toEqual({ status: 302, location: `/alerts/${alertId}?ack=done` });
   });
 
+  it('acts only for the person it was mailed to: another on-call engineer is sent to the app', async () => {
+    const { alertId, token } = await mailedLink();
+    const other = new SessionClient(api.url);
+    await other.signIn('admin@quillmere.example');
+    expect(await open(other, token)).toEqual({ status: 302, location: `/alerts/${alertId}?ack=someone_else` });
+    expect(await stateOf(alertId)).toBe('unacknowledged');
+    expect(await linkOf(alertId)).toMatchObject({ used_at: null });
+  });
+
   it('refuses people without the on-call role and keeps the link for someone who has it', async () => {
     const { alertId, token } = await mailedLink();
     const operator = new SessionClient(api.url);

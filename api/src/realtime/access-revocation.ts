@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import type pg from 'pg';
 import type { Logger } from 'pino';
 import type { Db } from '../db/knex.js';
+import { listenOnChannel } from '../lib/pg-listen.js';
 import type { RealtimeServer } from './realtime-types.js';
 
 /**
@@ -35,47 +36,15 @@ function roomOf(payload: string): string | null {
   return null;
 }
 
-/**
- * LISTENs on one connection of the pool and disconnects this process's sockets in the room the
- * notice names. Reconnects after a lost connection. stop() releases the connection.
- */
+/** Disconnects this process's sockets in the room a revocation notice names. */
 export function listenForRevocations(io: RealtimeServer, pool: pg.Pool, logger: Logger): { stop(): Promise<void> } {
-  let client: pg.PoolClient | null = null;
-  let stopped = false;
-  let retry: NodeJS.Timeout | null = null;
-  const connect = async () => {
-    try {
-      const connection = await pool.connect();
-      if (stopped) return connection.release();
-      client = connection;
-      connection.on('notification', (message) => {
-        if (message.channel !== ACCESS_CHANNEL || !message.payload) return;
-        const room = roomOf(message.payload);
-        if (room) io.local.in(room).disconnectSockets(true);
-      });
-      connection.on('error', (error) => {
-        logger.warn({ err: error }, 'access revocation listener lost its connection; reconnecting');
-        connection.release(error);
-        client = null;
-        if (!stopped) retry = setTimeout(() => void connect(), 1000);
-      });
-      await connection.query(`LISTEN ${ACCESS_CHANNEL}`);
-    } catch (error) {
-      logger.warn({ err: error }, 'access revocation listener cannot connect; retrying');
-      if (!stopped) retry = setTimeout(() => void connect(), 1000);
-    }
-  };
-  void connect();
-  return {
-    async stop() {
-      stopped = true;
-      if (retry) clearTimeout(retry);
-      const held = client;
-      client = null;
-      if (held) {
-        await held.query(`UNLISTEN ${ACCESS_CHANNEL}`).catch(() => undefined);
-        held.release();
-      }
+  return listenOnChannel(
+    pool,
+    ACCESS_CHANNEL,
+    (payload) => {
+      const room = roomOf(payload);
+      if (room) io.local.in(room).disconnectSockets(true);
     },
-  };
+    logger,
+  );
 }

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { RuleTransition } from '../drift-rules/rule-runtime.js';
-import { findModel, findRuleParams, residualSigma, residualWindow, type ActiveModel } from './alert-context.js';
+import type { ResidualStatistics } from '../tracking/residual-statistics.js';
+import { readRaiseContext, residualSigma, type ActiveModel } from './alert-context.js';
 import { clearAlert, raiseAlert } from './alert-raise.js';
 import { detailOf, summaryOf } from './alert-summary.js';
 import type { AlertChange } from './alerts.service.js';
@@ -16,6 +17,16 @@ export interface AlertLoop {
   outputs: { name: string; unit: string }[];
 }
 
+/**
+ * What the ingest already holds for the raise: the active model read with the rule set, each rule's
+ * params as evaluated (by rule id), and the loop's residual statistics as locked for this batch.
+ */
+export interface RaiseContext {
+  model: ActiveModel | null;
+  params: ReadonlyMap<string, Record<string, unknown>>;
+  stats: Pick<ResidualStatistics, 'count' | 'm2'>;
+}
+
 /** Merges changes per alert; a raise stays a raise when the same alert also changed later. */
 function merge(changes: Map<string, AlertChange['type']>, change: AlertChange | null): void {
   if (!change) return;
@@ -26,16 +37,17 @@ function merge(changes: Map<string, AlertChange['type']>, change: AlertChange | 
  * Turns the drift rules' raises and clears (rule-evaluation, in the ingest transaction) into
  * alerts: raised, raised again, cleared or — for a loop in maintenance — recorded as suppressed.
  * Runs in the caller's transaction; the caller publishes the returned changes after commit.
+ * `known`: what the caller already holds for a raise; read here when it is not given.
  */
 export async function applyRuleTransitions(
   trx: Knex.Transaction,
   loop: AlertLoop,
   transitions: RuleTransition[],
   now: Date,
+  known?: RaiseContext,
 ): Promise<AlertChange[]> {
   const changes = new Map<string, AlertChange['type']>();
-  let model: Promise<ActiveModel | null> | undefined;
-  const activeModel = () => (model ??= findModel(trx, { loopId: loop.id }));
+  let context = known;
   for (const transition of transitions) {
     if (transition.event === 'clear') {
       merge(
@@ -44,7 +56,12 @@ export async function applyRuleTransitions(
       );
       continue;
     }
-    merge(changes, await raiseForRule(trx, loop, transition, await activeModel(), now));
+    context ??= await readRaiseContext(
+      trx,
+      loop.id,
+      transitions.map((t) => t.ruleId),
+    );
+    merge(changes, await raiseForRule(trx, loop, transition, context, now));
   }
   return [...changes].map(([alertId, type]) => ({ alertId, type }));
 }
@@ -53,10 +70,11 @@ async function raiseForRule(
   trx: Knex.Transaction,
   loop: AlertLoop,
   transition: RuleTransition,
-  model: ActiveModel | null,
+  context: RaiseContext,
   now: Date,
 ): Promise<AlertChange | null> {
-  const params = await findRuleParams(trx, transition.ruleId);
+  const { model } = context;
+  const params = context.params.get(transition.ruleId) ?? null;
   const raiseAfter = typeof params?.raiseAfter === 'number' ? params.raiseAfter : null;
   const sigma = Array.isArray(params?.sigma) ? (params.sigma as number[]) : null;
   const summary = summaryOf(transition, {
@@ -79,19 +97,20 @@ async function raiseForRule(
       versionId: model?.id ?? null,
       summary,
       detail: detailOf(transition, loop.outputs),
-      direction: async () => {
-        // a missing reading has no residual to point anywhere
-        if (!model || transition.kind === 'stale') return null;
-        const residuals = await residualWindow(trx, loop.id, transition.slotMs, model.samplePeriodS);
-        return directionOf({
-          A: model.A,
-          C: model.C,
-          samplePeriodS: model.samplePeriodS,
-          outputs: loop.outputs,
-          residuals,
-          sigma: await residualSigma(trx, loop.id, params, loop.outputs.length),
-        });
-      },
+      // a missing reading has no residual to point anywhere
+      residualWindow:
+        model && transition.kind !== 'stale' ? { upToMs: transition.slotMs, samplePeriodS: model.samplePeriodS } : null,
+      direction: (residuals) =>
+        model
+          ? directionOf({
+              A: model.A,
+              C: model.C,
+              samplePeriodS: model.samplePeriodS,
+              outputs: loop.outputs,
+              residuals,
+              sigma: residualSigma(params, context.stats, loop.outputs.length),
+            })
+          : null,
     },
     now,
   );

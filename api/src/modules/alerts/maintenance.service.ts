@@ -1,4 +1,5 @@
 import type { SignedInUser } from '../../auth/user.js';
+import { announceCacheChange } from '../../lib/cache-notice.js';
 import type { AlertDetail, AlertRuleKind, AlertSuppression, LoopMaintenance } from '../../contracts/alerts.js';
 import type { Db } from '../../db/knex.js';
 import { notFound } from '../../http/errors.js';
@@ -24,6 +25,9 @@ export async function setLoopMaintenance(
     const before = (await trx('loops').where({ id: loopId }).first('maintenance')) as { maintenance: boolean };
     if (before.maintenance !== body.maintenance) {
       await trx('loops').where({ id: loopId }).update({ maintenance: body.maintenance, updated_at: trx.fn.now() });
+      // back in service: the rules start afresh, so a condition still present raises (and calls) again
+      if (!body.maintenance) await trx('loop_tracking').where({ loop_id: loopId }).update({ rule_state: {} });
+      await announceCacheChange(trx, { loopId });
       await recordAudit(trx, {
         actor,
         action: body.maintenance ? 'loop.maintenance_started' : 'loop.maintenance_ended',

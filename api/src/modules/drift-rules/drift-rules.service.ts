@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { announceCacheChange } from '../../lib/cache-notice.js';
 import type { z } from 'zod';
 import type { SignedInUser } from '../../auth/user.js';
 import type {
@@ -8,11 +9,13 @@ import type {
   PreviewDriftRuleBodySchema,
   RuleExpectation,
   SaveDriftRuleBodySchema,
+  StaleParams,
 } from '../../contracts/alerts.js';
 import type { Db } from '../../db/knex.js';
 import { badRequest, notFound } from '../../http/errors.js';
 import { isUuid } from '../../http/params.js';
 import { recordAudit } from '../audit/audit.repository.js';
+import { forgetLiveLoop } from '../readings/live-loop.js';
 import {
   insertRule,
   insertRuleVersion,
@@ -107,6 +110,13 @@ export async function saveDriftRule(
   await db.transaction(async (trx) => {
     const { before, ruleId, version } = await writeRule(trx, loop, kind, content, actor.id);
     await insertRuleVersion(trx, { ...content, ruleId, version, note: body.note, userId: actor.id });
+    await announceCacheChange(trx, { loopId: loop.id });
+    // one meaning of "stale" per loop: the tracking status turns stale when the rule would raise
+    if (kind === 'stale' && body.enabled) {
+      await trx('loops')
+        .where({ id: loop.id })
+        .update({ stale_after_samples: (params as StaleParams).afterSamples, updated_at: trx.fn.now() });
+    }
     await recordAudit(trx, {
       actor,
       action: 'drift_rule.saved',
@@ -124,6 +134,7 @@ export async function saveDriftRule(
     });
   });
   forgetRuleSet(loop.id);
+  if (kind === 'stale') forgetLiveLoop(loop.id);
   return (await listDriftRules(db, loop.id)).find((rule) => rule.kind === kind) as DriftRule;
 }
 

@@ -15,7 +15,8 @@ import type {
  * The drift rules on a loop's newest readings (in slot order). Pure: the same rules, states and
  * readings give the same result, and a batch split anywhere gives the same states and transitions
  * as the readings one by one. Readings without a residual (no prediction for the slot) move only
- * the stale rule.
+ * the stale rule, and break the runs of consecutive samples that band and nis count, as a missing
+ * slot does; CUSUM sums carry over a gap.
  */
 export function evaluateRules(
   rules: RuleInForce[],
@@ -77,6 +78,13 @@ function evaluateRule(
   const detector = detectorOf(rule, ctx);
   if (!detector) return state;
   for (const reading of readings) {
+    // "N consecutive samples": a missing slot, or a sample with no residual, starts the count again
+    const consecutive = state.lastK === undefined || reading.k === state.lastK + 1;
+    state.lastK = reading.k;
+    if (!consecutive || !reading.residual || reading.residual.length !== outputs) {
+      state.over = 0;
+      state.inside = 0;
+    }
     if (!reading.residual || reading.residual.length !== outputs) continue;
     const step = detector.step(state, reading.residual);
     if (step.event) out.push(transitionOf(rule, step.event, reading, step.statistic, reading, detector.limits));

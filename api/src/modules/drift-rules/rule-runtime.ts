@@ -1,3 +1,4 @@
+import type { Matrix } from '@shadowloop/simulator/engine';
 import type { DriftRuleKind, DriftRuleParams, Priority } from '../../contracts/alerts.js';
 
 /**
@@ -15,6 +16,16 @@ export interface RuleInForce {
   params: DriftRuleParams;
 }
 
+/** The loop's active model version, as an alert raise needs it (read with the rule set). */
+export interface RuleModel {
+  id: string;
+  number: number;
+  A: Matrix;
+  C: Matrix | null;
+  samplePeriodS: number;
+  analysis: { stability?: string; spectralRadius?: number } | null;
+}
+
 /** One rule's detector state, kept in loop_tracking.rule_state under the rule's id. */
 export interface RuleRuntime {
   /** The rule version this state belongs to; counters restart (raised is kept) when it changes. */
@@ -29,6 +40,8 @@ export interface RuleRuntime {
   lower: number[];
   /** The rule's newest statistic (|r|/limit, max CUSUM sum / h, NIS / limit): 0 … ≥ 1. */
   level: number;
+  /** The slot of the newest reading judged; a gap in k breaks a run of consecutive samples. */
+  lastK?: number;
 }
 export type RuleStates = Record<string, RuleRuntime>;
 

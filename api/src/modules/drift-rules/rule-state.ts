@@ -40,6 +40,7 @@ export function startState(rule: RuleInForce, prior: RuleRuntime | undefined, ou
     upper: sums(prior.upper),
     lower: sums(prior.lower),
     level: count(prior.level),
+    ...(typeof prior.lastK === 'number' ? { lastK: prior.lastK } : {}),
   };
 }
 

@@ -79,11 +79,11 @@ export async function unknownLoopIds(db: Db, ids: string[]): Promise<string[]> {
 
 const USE_RECORDED_EVERY_MS = 60_000;
 /**
- * A bridge posts many times a second: its token and its loops are looked up at most every few
- * seconds per api process. Changes made through this process (revoke, loops) clear the cache once
- * committed; other api processes see them within INGEST_LOOKUP_TTL_MS.
+ * A bridge posts many times a second: its token and its loops are looked up at most once a minute
+ * per api process. A revocation or a change of loops clears the cache of every api process when it
+ * commits (a cache notice, api/src/lib/cache-notice.ts); the time limit is the safety net.
  */
-export const INGEST_LOOKUP_TTL_MS = 5000;
+export const INGEST_LOOKUP_TTL_MS = 60_000;
 const tokens = createTtlCache<string, { sourceId: string; name: string }>(INGEST_LOOKUP_TTL_MS);
 const scopes = createTtlCache<string, true>(INGEST_LOOKUP_TTL_MS, 100_000);
 

@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import { announceCacheChange } from '../../lib/cache-notice.js';
 import type { SignedInUser } from '../../auth/user.js';
 import type { CreateIngestSourceBodySchema } from '../../contracts/ingest.js';
 import type { Db } from '../../db/knex.js';
@@ -85,6 +86,7 @@ export async function setIngestSourceLoops(db: Db, actor: SignedInUser, id: stri
     const before = await requireSource(trx, id);
     if (before.revokedAt) throw conflict(`The ingest source "${before.name}" is revoked; create a new source instead.`);
     await replaceSourceLoops(trx, id, loopIds);
+    await announceCacheChange(trx, { ingestSources: true });
     await recordAudit(trx, {
       actor,
       action: 'ingest_source.loops_changed',
@@ -102,6 +104,7 @@ export async function revokeIngestSource(db: Db, actor: SignedInUser, id: string
   if (source.revokedAt) return;
   await db.transaction(async (trx) => {
     await revokeSource(trx, id);
+    await announceCacheChange(trx, { ingestSources: true });
     await recordAudit(trx, {
       actor,
       action: 'ingest_source.revoked',

@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import { announceCacheChange } from '../../lib/cache-notice.js';
 import type { SignedInUser } from '../../auth/user.js';
 import type {
   CreateLoopBodySchema,
@@ -90,6 +91,7 @@ export async function updateLoop(
       );
     }
     await updateLoopRow(trx, id, body);
+    await announceCacheChange(trx, { loopId: id });
     await recordAudit(trx, {
       actor,
       action: 'loop.updated',

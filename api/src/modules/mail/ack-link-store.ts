@@ -36,6 +36,26 @@ export async function createAckLink(
   return { token: signAckToken(key, id, row.expires_at), expiresAt: row.expires_at };
 }
 
+/**
+ * The link rows (one per addressee, ids drawn here) and their signed tokens, by user id, for an
+ * insert the caller makes: expiresAt is the row's expiry as {@link createAckLink} computes it (the
+ * caller reads it on the database clock, in whole milliseconds).
+ */
+export function ackLinkRows(
+  key: Buffer,
+  alertId: string,
+  userIds: string[],
+  expiresAt: Date,
+): Map<string, { row: { id: string; alert_id: string; user_id: string; expires_at: Date }; token: string }> {
+  return new Map(
+    userIds.map((userId) => {
+      const id = randomUUID();
+      const row = { id, alert_id: alertId, user_id: userId, expires_at: expiresAt };
+      return [userId, { row, token: signAckToken(key, id, expiresAt) }];
+    }),
+  );
+}
+
 export async function findAckLink(db: Db, id: string): Promise<AckLinkRow | undefined> {
   return (await db('alert_ack_links').where({ id }).first('id', 'alert_id', 'user_id', 'expires_at', 'used_at')) as
     AckLinkRow | undefined;

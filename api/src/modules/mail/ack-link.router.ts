@@ -10,7 +10,7 @@ import { ackLinkKey } from './ack-token.js';
 
 const TOKEN_SHAPE = /^[A-Za-z0-9_-]{1,200}\.[A-Za-z0-9_-]{1,100}$/;
 
-/** Where the web app shows the outcome: ?ack=done|used|expired|forbidden|already|invalid. */
+/** Where the web app shows the outcome: ?ack=done|used|expired|forbidden|someone_else|already|invalid. */
 function land(res: Response, alertId: string | null, outcome: string): void {
   res.set('Cache-Control', 'no-store');
   res.redirect(302, alertId ? `/alerts/${alertId}?ack=${outcome}` : `/alerts?ack=${outcome}`);
@@ -19,9 +19,9 @@ function land(res: Response, alertId: string | null, outcome: string): void {
 /**
  * GET /a/:token, the one-click acknowledge link of alert e-mails: without a session it sends the
  * person to sign in and back; with the on-call role it acknowledges the alert once and lands on
- * the alert's page with the outcome. The token is the protection a GET with an effect needs
- * (signed, single use, short-lived); mail scanners that open links have no session and change
- * nothing.
+ * the alert's page with the outcome, for the person it was mailed to only. The token is the
+ * protection a GET with an effect needs (signed, single use, short-lived, bound to its addressee);
+ * mail scanners that open links have no session and change nothing.
  */
 export function createAckLinkRouter(deps: { db: Db; config: Config; publisher: TwinPublisher }): Router {
   const { db, publisher } = deps;
@@ -47,6 +47,8 @@ export function createAckLinkRouter(deps: { db: Db; config: Config; publisher: T
     if (check.status === 'invalid') return land(res, null, 'invalid');
     if (check.status !== 'valid') return land(res, check.alertId, check.status);
     if (!req.user.roles.includes('oncall')) return land(res, check.alertId, 'forbidden');
+    // a link acts only for the person it was mailed to: a forwarded or planted link changes nothing
+    if (check.addresseeId && check.addresseeId !== req.user.id) return land(res, check.alertId, 'someone_else');
     const result = await consumeAckLink(db, key, token, req.user);
     if (result.outcome === 'invalid') return land(res, null, 'invalid');
     if (result.outcome === 'done')

@@ -1,6 +1,5 @@
 import type { Knex } from 'knex';
 import type { Person } from '../../contracts/alerts.js';
-import { findOnCall } from '../oncall/oncall-lookup.js';
 import type { AlertMailReason } from './alert-mail-text.js';
 
 export interface Recipient extends Person {
@@ -28,12 +27,53 @@ const areaEngineers = (trx: Knex.Transaction, areaId: string) =>
     .orderBy('u.email')
     .select<Person[]>('u.id', 'u.name', 'u.email');
 
+type ShiftRaw = {
+  position: 'primary' | 'secondary';
+  area_id: string | null;
+  id: string;
+  name: string;
+  email: string;
+  may_acknowledge: boolean;
+};
+
+/**
+ * Who is on call for the area at `at`, with whether each holds the on-call role, in one query. The
+ * rule is findOnCall's (oncall/oncall-lookup.ts): the area's own shift for each position wins over
+ * a plant-wide one; among several covering shifts of one kind, the one that started last.
+ */
+async function onCallWithRoles(trx: Knex.Transaction, areaId: string, at: Date) {
+  const rows = (await trx('oncall_shifts as s')
+    .join('users as u', 'u.id', 's.user_id')
+    .where('s.starts_at', '<=', at)
+    .andWhere('s.ends_at', '>', at)
+    .andWhere((q) => q.whereNull('s.area_id').orWhere('s.area_id', areaId))
+    .orderBy('s.starts_at', 'desc')
+    .select(
+      's.position',
+      's.area_id',
+      'u.id',
+      'u.name',
+      'u.email',
+      trx.raw(`EXISTS (SELECT 1 FROM user_roles r WHERE r.user_id = u.id AND r.role = 'oncall') AS may_acknowledge`),
+    )) as ShiftRaw[];
+  const pick = (position: ShiftRaw['position']): Recipient | null => {
+    const row =
+      rows.find((r) => r.position === position && r.area_id !== null) ??
+      rows.find((r) => r.position === position && r.area_id === null);
+    return row ? { id: row.id, name: row.name, email: row.email, mayAcknowledge: row.may_acknowledge } : null;
+  };
+  return { primary: pick('primary'), secondary: pick('secondary') };
+}
+
+/** People, with whether each may acknowledge when that is already known (undefined: look it up). */
+type Told = { people: (Person & { mayAcknowledge?: boolean })[]; note: string | null };
+
 async function whoToTell(
   trx: Knex.Transaction,
   reason: AlertMailReason,
   area: { id: string; name: string },
   at: Date,
-): Promise<{ people: Person[]; note: string | null }> {
+): Promise<Told> {
   if (reason === 'escalated_area') {
     const own = await areaEngineers(trx, area.id);
     if (own.length) return { people: own, note: null };
@@ -42,11 +82,12 @@ async function whoToTell(
       note: `${area.name} has no engineers assigned, so this goes to every engineer.`,
     };
   }
-  const onCall = await findOnCall(trx, area.id, at);
+  const onCall = await onCallWithRoles(trx, area.id, at);
   if (reason === 'escalated_secondary') return { people: onCall.secondary ? [onCall.secondary] : [], note: null };
   if (onCall.primary) return { people: [onCall.primary], note: null };
   return {
-    people: await usersWithRole(trx, 'oncall'),
+    // everyone here holds the on-call role
+    people: (await usersWithRole(trx, 'oncall')).map((p) => ({ ...p, mayAcknowledge: true })),
     note: `Nobody is on call for ${area.name} right now, so this goes to everyone who holds the on-call role.`,
   };
 }
@@ -64,11 +105,19 @@ export async function pickRecipients(
 ): Promise<Audience> {
   const { people, note } = await whoToTell(trx, reason, area, at);
   const unique = [...new Map(people.map((p) => [p.id, p])).values()];
-  const ids = unique.map((p) => p.id);
+  const unknown = unique.filter((p) => p.mayAcknowledge === undefined).map((p) => p.id);
   const acknowledgers = new Set(
-    ids.length
-      ? (await trx('user_roles').where('role', 'oncall').whereIn('user_id', ids).pluck<string[]>('user_id')).map(String)
+    unknown.length
+      ? (await trx('user_roles').where('role', 'oncall').whereIn('user_id', unknown).pluck<string[]>('user_id')).map(
+          String,
+        )
       : [],
   );
-  return { people: unique.map((p) => ({ ...p, mayAcknowledge: acknowledgers.has(p.id) })), note };
+  return {
+    people: unique.map(({ mayAcknowledge, ...p }) => ({
+      ...p,
+      mayAcknowledge: mayAcknowledge ?? acknowledgers.has(p.id),
+    })),
+    note,
+  };
 }

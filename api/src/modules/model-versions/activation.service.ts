@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { announceCacheChange } from '../../lib/cache-notice.js';
 import type { SignedInUser } from '../../auth/user.js';
 import type { Db } from '../../db/knex.js';
 import { conflict } from '../../http/errors.js';
@@ -19,6 +20,8 @@ export async function notifyActiveChanged(
   versionId: string | null,
 ): Promise<void> {
   await trx.raw('SELECT pg_notify(?, ?)', [MODEL_ACTIVATED_CHANNEL, JSON.stringify({ loopId, versionId })]);
+  // the ingest's cached loop (twin or not) and rule set (the active model) change with it
+  await announceCacheChange(trx, { loopId });
 }
 
 const rethrowSecondActive = (error: { code?: string; constraint?: string }): never => {

@@ -2,6 +2,7 @@ import type { SignedInUser } from '../../auth/user.js';
 import type { Db } from '../../db/knex.js';
 import { AppError, forbidden } from '../../http/errors.js';
 import { findActiveVersionId, updateVersion } from './model-versions.repository.js';
+import { clearAlert } from '../alerts/alert-raise.js';
 import { notifyActiveChanged } from './activation.service.js';
 import { changeVersion, describeVersion, requireSecondEngineer, requireStatus } from './version-change.js';
 
@@ -66,7 +67,11 @@ export function retireVersion(db: Db, actor: SignedInUser, id: string, note: str
   return changeVersion(db, actor, id, 'retired', async (trx, version) => {
     requireStatus(version, ['active', 'approved'], 'retired');
     await updateVersion(trx, id, { status: 'retired', retired_at: trx.fn.now() });
-    if (version.status === 'active') await notifyActiveChanged(trx, version.loopId, null);
+    if (version.status === 'active') {
+      await notifyActiveChanged(trx, version.loopId, null);
+      // no version runs any more: a warning that the running one was unstable no longer holds
+      await clearAlert(trx, version.loopId, 'model', new Date(), { versionId: id, retired: true });
+    }
     return { previousStatus: version.status, note: note || undefined };
   });
 }

@@ -54,6 +54,11 @@ export async function checkDrift(
         },
         evaluation.transitions,
         now,
+        {
+          model: ruleSet.model,
+          params: new Map(ruleSet.rules.map((r) => [r.id, r.params as Record<string, unknown>])),
+          stats: before.stats,
+        },
       )
     : [];
   return { tracking: { ...folded, status, ruleStates: evaluation.states }, changes };

@@ -4,7 +4,7 @@ import type { Db } from '../../db/knex.js';
 import type { TwinPublisher } from '../../realtime/publisher.js';
 import { forgetTrendMinutes } from '../series/trend-minutes.js';
 import { foldReadings } from '../tracking/tracking-fold.js';
-import { lockTracking, saveTracking } from '../tracking/tracking.repository.js';
+import { saveTracking } from '../tracking/tracking.repository.js';
 import { requireRecentLiveLoop, type LiveLoop } from './live-loop.js';
 import type { PartitionKeeper } from './partitions.js';
 import { checkReading, type CheckedReading, type ReadingRules } from './reading-checks.js';
@@ -69,8 +69,7 @@ export async function ingestReadings(
   if (!good.length) return { accepted: 0, duplicates, rejected };
   await deps.partitions.ensureDays(good.map((r) => utcDay(r.slotMs)));
   const outcome = await deps.db.transaction(async (trx) => {
-    const before = await lockTracking(trx, target.id);
-    const stored = await insertScoredReadings(
+    const { before, stored } = await insertScoredReadings(
       trx,
       { loopId: target.id, inputs: target.inputs, outputs: target.outputs, sourceId: principal?.sourceId ?? null },
       good,

@@ -90,10 +90,12 @@ export async function requireLiveLoop(db: Db, loopId: string): Promise<LiveLoop>
 }
 
 /**
- * For ingest, which may see a loop many times a second: the loop as read at most a few seconds
- * ago. Band, stale limit and twin changes reach the ingest within LIVE_LOOP_TTL_MS.
+ * For ingest, which may see a loop many times a second: the loop as read at most LIVE_LOOP_TTL_MS
+ * ago. Loop edits, maintenance, stale-rule saves and activations clear it in every api process when
+ * they commit (a cache notice, api/src/lib/cache-notice.ts); a twin the simulator starts is seen
+ * within the time limit (until then the loop's status reads `no_twin` in the ingest's fold).
  */
-export const LIVE_LOOP_TTL_MS = 5000;
+export const LIVE_LOOP_TTL_MS = 60_000;
 const recent = createTtlCache<string, LiveLoop>(LIVE_LOOP_TTL_MS);
 
 /** After a change of the loop (maintenance, band, stale limit), so this process sees it at once. */

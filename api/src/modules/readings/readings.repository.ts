@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
-import type { ScoredReading } from '../tracking/tracking-fold.js';
+import type { ScoredReading, TrackingState } from '../tracking/tracking-fold.js';
+import { LOCK_TRACKING_SQL, trackingStateOf, type TrackingRaw } from '../tracking/tracking.repository.js';
 import type { CheckedReading } from './reading-checks.js';
 
 /** A PostgreSQL array literal of numbers or ISO times (neither needs quoting). */
@@ -7,22 +8,27 @@ const arrayLiteral = (items: (number | string)[]) => `{${items.join(',')}}`;
 const iso = (ms: number) => new Date(ms).toISOString();
 
 /**
- * One statement per batch: unnest the batch (checked, one reading per slot) into readings, where
+ * One statement per batch: lock the loop's tracking row (created when missing) and return it as it
+ * stands before the batch; unnest the batch (checked, one reading per slot) into readings, where
  * ON CONFLICT DO NOTHING keeps a slot's earlier reading; write each new reading's residual y − ŷ
  * into the prediction the twin stored for its slot; return the slot of each new reading with its
- * residual (the prediction itself only for the newest, which goes out as a twin sample). u and y
- * travel as one flat array each and are cut back into rows by position. The batch's first and last
- * slot bound the predictions lookup, so it touches only the partitions and index range of the batch.
+ * residual (the prediction itself only for the newest, which goes out as a twin sample). The
+ * readings insert joins the locked row, so the lock is always taken before any reading is written
+ * (the same order as a separate lock statement). u and y travel as one flat array each and are cut
+ * back into rows by position. The batch's first and last slot bound the predictions lookup, so it
+ * touches only the partitions and index range of the batch. At least one row comes back (the
+ * tracking columns; k null when nothing new was stored).
  */
 const INSERT_SCORED = `
-WITH batch AS (
+WITH tracking AS (${LOCK_TRACKING_SQL}
+), batch AS (
   SELECT b.k, b.slot_at, b.t, b.ord
   FROM unnest(?::bigint[], ?::timestamptz[], ?::timestamptz[]) WITH ORDINALITY AS b(k, slot_at, t, ord)
 ), inserted AS (
   INSERT INTO readings (loop_id, slot_at, k, t, u, y, source_id)
   SELECT ?::uuid, b.slot_at, b.k, b.t,
     flat.u[(b.ord - 1) * ? + 1 : b.ord * ?], flat.y[(b.ord - 1) * ? + 1 : b.ord * ?], ?::uuid
-  FROM batch b, (SELECT ?::float8[] AS u, ?::float8[] AS y) flat
+  FROM tracking, batch b, (SELECT ?::float8[] AS u, ?::float8[] AS y) flat
   ON CONFLICT DO NOTHING
   RETURNING slot_at, k, y
 ), scored AS (
@@ -31,20 +37,26 @@ WITH batch AS (
   WHERE p.loop_id = ?::uuid AND p.slot_at BETWEEN ?::timestamptz AND ?::timestamptz AND p.slot_at = n.slot_at
   RETURNING p.slot_at, p.y, p.residual
 )
-SELECT n.k, s.residual, CASE WHEN n.k = (SELECT max(k) FROM inserted) THEN s.y END AS predicted
-FROM inserted n LEFT JOIN scored s USING (slot_at)`;
+SELECT t.status, t.last_reading_at, t.last_slot_at, t.residual_count, t.residual_mean, t.residual_m2,
+  t.last_residual, t.worst_band_fraction, t.rule_state,
+  n.k, s.residual, CASE WHEN n.k = (SELECT max(k) FROM inserted) THEN s.y END AS predicted
+FROM tracking t LEFT JOIN (inserted n LEFT JOIN scored s USING (slot_at)) ON true`;
 
-type Raw = { k: string; residual: number[] | null; predicted: number[] | null };
+type Raw = TrackingRaw & { k: string | null; residual: number[] | null; predicted: number[] | null };
 
-/** Stores the (checked, one per slot) readings; returns the new ones in slot order with residual. */
+/**
+ * Locks the loop's tracking row and stores the (checked, one per slot) readings; returns the
+ * tracking state before the batch and the new readings in slot order with residual.
+ */
 export async function insertScoredReadings(
   trx: Knex.Transaction,
   target: { loopId: string; inputs: number; outputs: number; sourceId: string | null },
   readings: CheckedReading[],
-): Promise<ScoredReading[]> {
+): Promise<{ before: TrackingState; stored: ScoredReading[] }> {
   const { loopId, inputs: m, outputs: p } = target;
   const slots = readings.map((r) => r.slotMs);
   const { rows } = (await trx.raw(INSERT_SCORED, [
+    loopId,
     arrayLiteral(readings.map((r) => r.k)),
     arrayLiteral(slots.map(iso)),
     arrayLiteral(readings.map((r) => iso(r.tMs))),
@@ -61,7 +73,8 @@ export async function insertScoredReadings(
     iso(Math.max(...slots)),
   ])) as { rows: Raw[] };
   const byK = new Map(readings.map((r) => [r.k, r]));
-  return rows
+  const stored = rows
+    .filter((row) => row.k !== null)
     .map((row) => {
       const reading = byK.get(Number(row.k)) as CheckedReading;
       return {
@@ -74,4 +87,5 @@ export async function insertScoredReadings(
       };
     })
     .sort((a, b) => a.k - b.k);
+  return { before: trackingStateOf(rows[0]), stored };
 }

@@ -34,7 +34,8 @@ export async function sweepStaleLoops(db: Db, now = new Date()): Promise<AlertCh
     const made = await db.transaction(async (trx) => {
       const tracking = await lockTracking(trx, id);
       const loop = await findLiveLoop(trx, id);
-      const rule = (await recentRuleSet(trx, id)).rules.find((r) => r.kind === 'stale' && r.enabled);
+      const ruleSet = await recentRuleSet(trx, id);
+      const rule = ruleSet.rules.find((r) => r.kind === 'stale' && r.enabled);
       if (!loop || !rule) return [];
       const { state, transition } = evaluateStale(rule, tracking.ruleStates[rule.id], {
         lastReadingMs: tracking.lastReadingMs,
@@ -56,6 +57,7 @@ export async function sweepStaleLoops(db: Db, now = new Date()): Promise<AlertCh
         },
         [transition],
         now,
+        { model: ruleSet.model, params: new Map([[rule.id, rule.params]]), stats: tracking.stats },
       );
     });
     changes.push(...made);

@@ -4,7 +4,7 @@ import type { Db } from '../../db/knex.js';
 import type { RuleStates } from '../drift-rules/rule-runtime.js';
 import type { TrackingState } from './tracking-fold.js';
 
-type Raw = {
+export type TrackingRaw = {
   status: TrackingStatus;
   last_reading_at: Date | null;
   last_slot_at: Date | null;
@@ -19,7 +19,8 @@ type Raw = {
 const ms = (d: Date | null) => (d ? d.getTime() : null);
 const date = (v: number | null) => (v === null ? null : new Date(v));
 
-const toState = (r: Raw): TrackingState => ({
+/** A loop_tracking row (all its state columns) in API terms. */
+export const trackingStateOf = (r: TrackingRaw): TrackingState => ({
   status: r.status,
   lastReadingMs: ms(r.last_reading_at),
   lastSlotMs: ms(r.last_slot_at),
@@ -30,21 +31,22 @@ const toState = (r: Raw): TrackingState => ({
 });
 
 export async function readTracking(db: Db, loopId: string): Promise<TrackingState | undefined> {
-  const row = (await db('loop_tracking').where({ loop_id: loopId }).first()) as Raw | undefined;
-  return row && toState(row);
+  const row = (await db('loop_tracking').where({ loop_id: loopId }).first()) as TrackingRaw | undefined;
+  return row && trackingStateOf(row);
 }
 
 /**
  * Creates the loop's tracking row when missing and locks it until the transaction ends, so that
- * batches for one loop fold their residuals one after the other.
+ * batches for one loop fold their residuals one after the other. Under a lock wait the row returned
+ * is the one the other transaction committed (ON CONFLICT DO UPDATE takes the newest version), so the
+ * statement may also run as a CTE of a bigger one (readings.repository.ts). One parameter: the loop id.
  */
+export const LOCK_TRACKING_SQL = `INSERT INTO loop_tracking (loop_id) VALUES (?::uuid)
+    ON CONFLICT (loop_id) DO UPDATE SET loop_id = EXCLUDED.loop_id RETURNING *`;
+
 export async function lockTracking(trx: Knex.Transaction, loopId: string): Promise<TrackingState> {
-  const { rows } = (await trx.raw(
-    `INSERT INTO loop_tracking (loop_id) VALUES (?)
-    ON CONFLICT (loop_id) DO UPDATE SET loop_id = EXCLUDED.loop_id RETURNING *`,
-    [loopId],
-  )) as { rows: Raw[] };
-  return toState(rows[0]);
+  const { rows } = (await trx.raw(LOCK_TRACKING_SQL, [loopId])) as { rows: TrackingRaw[] };
+  return trackingStateOf(rows[0]);
 }
 
 export async function saveTracking(trx: Db, loopId: string, s: TrackingState): Promise<void> {

@@ -126,13 +126,25 @@ describe('cusum rule', () => {
   });
 });
 
-describe('readings without a residual', () => {
-  it('do not move band, cusum or nis', () => {
+describe('readings without a residual, and missing slots', () => {
+  it('do not move cusum, and break the run of consecutive samples a band rule counts', () => {
     const rules = [rule('band', band({ raiseAfter: 2 })), rule('cusum', cusum())];
     const withGaps = readings([2, null, null, 2]);
     const result = evaluateRules(rules, {}, context(), withGaps);
-    expect(result.transitions.map((t) => `${t.kind}:${t.k}`)).toEqual(['band:103']);
+    expect(result.transitions).toEqual([]);
+    expect(result.states['rule-band']).toMatchObject({ over: 1, raised: false });
     expect(result.states['rule-cusum'].upper).toEqual([3]);
+    const twoInARow = evaluateRules(rules, {}, context(), readings([2, null, 2, 2]));
+    expect(twoInARow.transitions.filter((t) => t.kind === 'band').map((t) => t.k)).toEqual([103]);
+  });
+
+  it('a slot that never arrived breaks the run too, also across batches', () => {
+    const bandRule = [rule('band', band({ raiseAfter: 2 }))];
+    const [a, , c] = readings([2, 2, 2]);
+    const first = evaluateRules(bandRule, {}, context(), [a]);
+    expect(evaluateRules(bandRule, first.states, context(), [c]).transitions).toEqual([]);
+    const [, b] = readings([2, 2]);
+    expect(evaluateRules(bandRule, first.states, context(), [b]).transitions.map((t) => t.k)).toEqual([b.k]);
   });
 
   it('and residuals of the wrong length are skipped too', () => {

@@ -23,6 +23,10 @@ export const ACK_LINK_OUTCOMES = {
     tone: 'diverged',
     text: 'Your account cannot acknowledge alerts: that needs the on-call role. Ask an administrator if you should have it.',
   },
+  someone_else: {
+    tone: 'drifting',
+    text: 'That acknowledge link was sent to someone else and works only for them. If you are handling the alert, acknowledge it here.',
+  },
   invalid: {
     tone: 'diverged',
     text: 'That acknowledge link is not valid: it may have been cut short or changed. Find the alert here and acknowledge it in the app.',

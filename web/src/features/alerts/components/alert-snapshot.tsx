@@ -5,7 +5,12 @@ import { ErrorNotice } from '../../../components/errors/error-notice';
 import type { Loop } from '../../loops/api/get-loops';
 import { ChartLegend } from '../../twin/components/chart-legend';
 import type { Series } from '../../twin/api/get-series';
-import { alertSnapshotQueryOptions, SNAPSHOT_AFTER_SAMPLES, SNAPSHOT_BEFORE_SAMPLES } from '../api/get-alert-snapshot';
+import {
+  alertSnapshotQueryOptions,
+  raiseSlotOf,
+  SNAPSHOT_AFTER_SAMPLES,
+  SNAPSHOT_BEFORE_SAMPLES,
+} from '../api/get-alert-snapshot';
 import { snapshotChartOptions, snapshotData } from '../utils/snapshot-chart';
 
 const LEGEND = [
@@ -39,7 +44,7 @@ export function AlertSnapshot({
   alert,
   loop,
 }: {
-  alert: { id: string; loopId: string; raisedAt: string };
+  alert: { id: string; loopId: string; raisedAt: string; detail?: { slotAt?: string } };
   loop: Loop;
 }) {
   const series = useQuery(alertSnapshotQueryOptions(alert, loop.samplePeriodS));
@@ -57,7 +62,7 @@ export function AlertSnapshot({
       <p className="text-xs text-ink/75">{windowText}</p>
       <div className={`grid gap-3 ${loop.outputs.length > 1 ? 'xl:grid-cols-2' : ''}`}>
         {loop.outputs.map((_, output) => (
-          <OutputChart key={output} series={series.data} output={output} loop={loop} raisedAt={alert.raisedAt} />
+          <OutputChart key={output} series={series.data} output={output} loop={loop} raisedAt={raiseSlotOf(alert)} />
         ))}
       </div>
     </div>

@@ -145,14 +145,18 @@ function shelve(alert: LifecycleAlert, action: Extract<LifecycleAction, { type: 
   return changed({ ...next, shelveReason: action.reason.trim() }, 'shelved');
 }
 
-/** The shelf time ended: a present condition calls people again; a gone one waits as returned. */
+/**
+ * The shelf time ended: a present condition calls people again. A condition that went away while
+ * shelved returns to normal (ISA-18.2's unshelve): the alert counts as acknowledged by whoever
+ * shelved it, so that the condition coming back calls people again (mail `reactivated`).
+ */
 function expireShelve(alert: LifecycleAlert, at: Date): LifecycleResult {
   if (alert.state !== 'shelved') return refused(409, 'not_shelved', 'The alert is not shelved.');
   if (alert.shelvedUntil && alert.shelvedUntil.getTime() > at.getTime())
     return refused(409, 'shelf_time_running', 'The shelf time has not ended yet.');
   const base = { ...alert, ...leaveShelf, acknowledgedAt: null, acknowledgedBy: null };
   if (alert.active) return changed({ ...base, state: 'unacknowledged' }, 'unshelved', 'shelve_expired');
-  return changed({ ...base, state: 'returned_unacknowledged' }, 'unshelved');
+  return changed({ ...base, state: 'acknowledged', acknowledgedAt: at, acknowledgedBy: alert.shelvedBy }, 'unshelved');
 }
 
 /** Done with it: a cause and a note; a closed alert no longer follows its condition. */

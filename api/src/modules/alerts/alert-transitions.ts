@@ -100,17 +100,22 @@ async function raiseForRule(
       // a missing reading has no residual to point anywhere
       residualWindow:
         model && transition.kind !== 'stale' ? { upToMs: transition.slotMs, samplePeriodS: model.samplePeriodS } : null,
-      direction: (residuals) =>
-        model
-          ? directionOf({
-              A: model.A,
-              C: model.C,
-              samplePeriodS: model.samplePeriodS,
-              outputs: loop.outputs,
-              residuals,
-              sigma: residualSigma(params, context.stats, loop.outputs.length),
-            })
-          : null,
+      direction: (residuals) => {
+        if (!model) return null;
+        // the hint is an annotation: a model the direction maths cannot use never holds up the raise
+        try {
+          return directionOf({
+            A: model.A,
+            C: model.C,
+            samplePeriodS: model.samplePeriodS,
+            outputs: loop.outputs,
+            residuals,
+            sigma: residualSigma(params, context.stats, loop.outputs.length),
+          });
+        } catch {
+          return null;
+        }
+      },
     },
     now,
   );

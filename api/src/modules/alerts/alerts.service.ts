@@ -145,10 +145,24 @@ export async function closeAlert(
  * the reason (its savepoint rolls back) and the others go through. Rows are locked in id order.
  */
 export async function acknowledgeAlerts(db: Db, actor: SignedInUser, ids: string[], note: string) {
+  // a deadlock with an ingest raising or clearing one of these alerts at the same moment: try again
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await acknowledgeAlertsOnce(db, actor, ids, note);
+    } catch (error) {
+      if ((error as { code?: string }).code !== '40P01' || attempt >= 3) throw error;
+    }
+  }
+}
+
+async function acknowledgeAlertsOnce(db: Db, actor: SignedInUser, ids: string[], note: string) {
   const acknowledged: string[] = [];
   const skipped: { id: string; reason: string }[] = [];
+  const unique = [...new Set(ids)].sort();
   await db.transaction(async (trx) => {
-    for (const id of [...new Set(ids)].sort()) {
+    // every row locked up front, in one statement and one order
+    await trx('alerts').whereIn('id', unique).orderBy('id').forUpdate().select('id');
+    for (const id of unique) {
       try {
         await trx.transaction((savepoint) =>
           changeLocked(savepoint, actor, id, {

@@ -195,10 +195,21 @@ describe('shelve expiry', () => {
     });
   });
 
-  it('condition gone → returned_unacknowledged, no mail', () => {
-    const result = transition(run(fresh(), shelve(), clear(10)), expire());
+  it('condition gone → back to normal: acknowledged by whoever shelved it, no mail; its return calls people again', () => {
+    const shelved = run(fresh(), shelve(), clear(10));
+    const result = transition(shelved, expire());
     expect(result).toMatchObject({ outcome: 'changed', event: 'unshelved', mail: null });
-    expect(next(result)).toMatchObject({ state: 'returned_unacknowledged', active: false, shelveReason: null });
+    expect(next(result)).toMatchObject({
+      state: 'acknowledged',
+      active: false,
+      shelveReason: null,
+      acknowledgedBy: shelved.shelvedBy,
+    });
+    expect(transition(next(result), { type: 'reraise', at: at(700) })).toMatchObject({
+      outcome: 'changed',
+      event: 'reactivated',
+      mail: 'reactivated',
+    });
   });
 
   it('refuses before the end and for an alert that is not shelved', () => {

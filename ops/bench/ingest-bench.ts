@@ -1,7 +1,7 @@
 /**
  * Live-twin benchmark: HTTP ingest against a raw COPY of the same rows, the downsampled week trend
  * against the raw fetch, and reading → twin:sample latency over many loops. It starts its own
- * throwaway PostgreSQL cluster and the api in this process (loopback only), and removes both.
+ * throwaway PostgreSQL cluster and the api as its own process (loopback only), and removes both.
  * `runIngestBench()` returns rows for ops/bench/run.ts; run directly it prints them.
  * BENCH_INGEST_SECONDS (default 60), BENCH_LATENCY_LOOPS (200), BENCH_LATENCY_SECONDS (20),
  * BENCH_LATENCY_WIDE_LOOPS (2000), BENCH_LATENCY_WIDE_PERIOD_S (10), BENCH_LATENCY_WIDE_SECONDS (40),

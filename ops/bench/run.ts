@@ -8,7 +8,7 @@ import { runTwinBench } from './twin-bench.js';
  */
 console.log('Shadowloop benchmarks (2 cores; close other work for stable numbers)\n');
 const engine = runEngineBench();
-console.log('Live twin: a throwaway PostgreSQL cluster and the api in this process (about 3 minutes)…\n');
+console.log('Live twin and alerts: a throwaway PostgreSQL cluster and the api as its own process (about 7 minutes)…\n');
 const ingest = await runIngestBench();
 console.log('Stepping: 2,000 twins on another throwaway cluster (about a minute)…\n');
 printBenchTable([...engine, ...ingest, ...(await runTwinBench())]);

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { Person } from '../../contracts/alerts.js';
+import { findOnCallPeople, type OnCallPerson } from '../oncall/oncall-lookup.js';
 import type { AlertMailReason } from './alert-mail-text.js';
 
 export interface Recipient extends Person {
@@ -27,42 +28,12 @@ const areaEngineers = (trx: Knex.Transaction, areaId: string) =>
     .orderBy('u.email')
     .select<Person[]>('u.id', 'u.name', 'u.email');
 
-type ShiftRaw = {
-  position: 'primary' | 'secondary';
-  area_id: string | null;
-  id: string;
-  name: string;
-  email: string;
-  may_acknowledge: boolean;
-};
-
-/**
- * Who is on call for the area at `at`, with whether each holds the on-call role, in one query. The
- * rule is findOnCall's (oncall/oncall-lookup.ts): the area's own shift for each position wins over
- * a plant-wide one; among several covering shifts of one kind, the one that started last.
- */
+/** The on-call pair with whether each may acknowledge (oncall/oncall-lookup.ts decides who it is). */
 async function onCallWithRoles(trx: Knex.Transaction, areaId: string, at: Date) {
-  const rows = (await trx('oncall_shifts as s')
-    .join('users as u', 'u.id', 's.user_id')
-    .where('s.starts_at', '<=', at)
-    .andWhere('s.ends_at', '>', at)
-    .andWhere((q) => q.whereNull('s.area_id').orWhere('s.area_id', areaId))
-    .orderBy('s.starts_at', 'desc')
-    .select(
-      's.position',
-      's.area_id',
-      'u.id',
-      'u.name',
-      'u.email',
-      trx.raw(`EXISTS (SELECT 1 FROM user_roles r WHERE r.user_id = u.id AND r.role = 'oncall') AS may_acknowledge`),
-    )) as ShiftRaw[];
-  const pick = (position: ShiftRaw['position']): Recipient | null => {
-    const row =
-      rows.find((r) => r.position === position && r.area_id !== null) ??
-      rows.find((r) => r.position === position && r.area_id === null);
-    return row ? { id: row.id, name: row.name, email: row.email, mayAcknowledge: row.may_acknowledge } : null;
-  };
-  return { primary: pick('primary'), secondary: pick('secondary') };
+  const { primary, secondary } = await findOnCallPeople(trx, areaId, at);
+  const asRecipient = (p: OnCallPerson | null): Recipient | null =>
+    p && { id: p.id, name: p.name, email: p.email, mayAcknowledge: p.holdsOnCallRole };
+  return { primary: asRecipient(primary), secondary: asRecipient(secondary) };
 }
 
 /** People, with whether each may acknowledge when that is already known (undefined: look it up). */

@@ -3,6 +3,8 @@ import { applyRuleTransitions } from '../alerts/alert-transitions.js';
 import type { AlertChange } from '../alerts/alerts.service.js';
 import { evaluateRules } from '../drift-rules/rule-evaluation.js';
 import { recentRuleSet } from '../drift-rules/rule-set.js';
+import type { RuleTransition } from '../drift-rules/rule-runtime.js';
+import type { RuleSet } from '../drift-rules/rule-set.js';
 import type { ScoredReading, TrackingState } from '../tracking/tracking-fold.js';
 import type { LiveLoop } from './live-loop.js';
 
@@ -42,24 +44,40 @@ export async function checkDrift(
     else if (evaluation.building && status === 'in_step') status = 'drifting';
   }
   const changes = evaluation.transitions.length
-    ? await applyRuleTransitions(
-        trx,
-        {
-          id: target.id,
-          tag: target.tag,
-          name: target.name,
-          area: target.area,
-          maintenance: target.maintenance,
-          outputs: target.outputSignals,
-        },
-        evaluation.transitions,
-        now,
-        {
-          model: ruleSet.model,
-          params: new Map(ruleSet.rules.map((r) => [r.id, r.params as Record<string, unknown>])),
-          stats: before.stats,
-        },
-      )
+    ? await applyToAlerts(trx, target, ruleSet, before, evaluation.transitions, now)
     : [];
   return { tracking: { ...folded, status, ruleStates: evaluation.states }, changes };
+}
+
+/**
+ * Turns the rules' raises and clears into alerts, handing over what the caller already read (the
+ * rule set with its active model, the loop's residual statistics) so the raise reads nothing twice.
+ * Used by the ingest and by the stale sweep.
+ */
+export function applyToAlerts(
+  trx: Knex.Transaction,
+  loop: LiveLoop,
+  ruleSet: RuleSet,
+  tracking: Pick<TrackingState, 'stats'>,
+  transitions: RuleTransition[],
+  now: Date,
+): Promise<AlertChange[]> {
+  return applyRuleTransitions(
+    trx,
+    {
+      id: loop.id,
+      tag: loop.tag,
+      name: loop.name,
+      area: loop.area,
+      maintenance: loop.maintenance,
+      outputs: loop.outputSignals,
+    },
+    transitions,
+    now,
+    {
+      model: ruleSet.model,
+      params: new Map(ruleSet.rules.map((r) => [r.id, r.params as Record<string, unknown>])),
+      stats: tracking.stats,
+    },
+  );
 }

@@ -1,10 +1,10 @@
 import type { Db } from '../../db/knex.js';
-import { applyRuleTransitions } from '../alerts/alert-transitions.js';
 import type { AlertChange } from '../alerts/alerts.service.js';
 import { evaluateStale } from '../drift-rules/rule-evaluation.js';
 import { recentRuleSet } from '../drift-rules/rule-set.js';
 import { lockTracking, saveTracking } from '../tracking/tracking.repository.js';
-import { findLiveLoop, forgetLiveLoop, TWIN_RUNNING_SQL } from './live-loop.js';
+import { applyToAlerts } from './drift-check.js';
+import { findLiveLoop, TWIN_RUNNING_SQL } from './live-loop.js';
 
 /**
  * Loops whose readings stopped: an enabled `stale` rule, a running twin, at least one reading ever
@@ -30,7 +30,6 @@ export async function sweepStaleLoops(db: Db, now = new Date()): Promise<AlertCh
   const { rows } = (await db.raw(DUE_SQL, [now.toISOString()])) as { rows: { id: string }[] };
   const changes: AlertChange[] = [];
   for (const { id } of rows) {
-    forgetLiveLoop(id);
     const made = await db.transaction(async (trx) => {
       const tracking = await lockTracking(trx, id);
       const loop = await findLiveLoop(trx, id);
@@ -45,20 +44,7 @@ export async function sweepStaleLoops(db: Db, now = new Date()): Promise<AlertCh
       });
       await saveTracking(trx, id, { ...tracking, ruleStates: { ...tracking.ruleStates, [rule.id]: state } });
       if (!transition) return [];
-      return applyRuleTransitions(
-        trx,
-        {
-          id: loop.id,
-          tag: loop.tag,
-          name: loop.name,
-          area: loop.area,
-          maintenance: loop.maintenance,
-          outputs: loop.outputSignals,
-        },
-        [transition],
-        now,
-        { model: ruleSet.model, params: new Map([[rule.id, rule.params]]), stats: tracking.stats },
-      );
+      return applyToAlerts(trx, loop, ruleSet, tracking, [transition], now);
     });
     changes.push(...made);
   }

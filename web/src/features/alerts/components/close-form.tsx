@@ -1,4 +1,5 @@
 import type { CloseCause } from '@shadowloop/api/contracts';
+import { NoteField } from '../../../components/ui/note-field';
 import { useState } from 'react';
 import { Button } from '../../../components/ui/button';
 import { Field, INPUT_CLASSES } from '../../../components/ui/field';
@@ -6,7 +7,6 @@ import { useAlertAction } from '../api/use-alert-action';
 import { CLOSE_CAUSE_LABELS } from '../utils/alert-words';
 import { serverErrors, topLevelField } from '../utils/server-errors';
 import { FormError } from './form-error';
-import { TextAreaField } from './text-area-field';
 
 const CAUSES = Object.entries(CLOSE_CAUSE_LABELS) as [CloseCause, string][];
 
@@ -57,7 +57,8 @@ export function CloseForm({ alertId, onDone }: { alertId: string; onDone: () => 
           </select>
         )}
       </Field>
-      <TextAreaField
+      <NoteField
+        rows={3}
         label="Note"
         hint="What was found, and what was done about it."
         value={note}

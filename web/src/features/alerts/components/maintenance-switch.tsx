@@ -1,10 +1,10 @@
 import { useState } from 'react';
+import { NoteField } from '../../../components/ui/note-field';
 import { Button } from '../../../components/ui/button';
 import type { Loop } from '../../loops/api/get-loops';
 import { useSetMaintenance } from '../api/set-maintenance';
 import { serverErrors, topLevelField } from '../utils/server-errors';
 import { FormError } from './form-error';
-import { TextAreaField } from './text-area-field';
 
 function StateSentence({ maintenance, tag }: { maintenance: boolean; tag: string }) {
   return maintenance ? (
@@ -40,7 +40,7 @@ export function MaintenanceSwitch({ loop }: { loop: Loop }) {
         While a loop is in maintenance, its drift rules keep watching and every raise is recorded, but no alert calls
         anyone. Alerts already open stay as they are.
       </p>
-      <TextAreaField label="Why" value={note} onChange={setNote} error={problem ?? server.fields.note} />
+      <NoteField label="Why" rows={3} value={note} onChange={setNote} error={problem ?? server.fields.note} />
       <FormError message={server.general} />
       <div className="flex gap-2">
         {maintenance !== true ? (

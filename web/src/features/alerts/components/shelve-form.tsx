@@ -1,4 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
+import { NoteField } from '../../../components/ui/note-field';
 import { useState } from 'react';
 import { Button } from '../../../components/ui/button';
 import { Field, INPUT_CLASSES } from '../../../components/ui/field';
@@ -9,7 +10,6 @@ import { useAlertAction } from '../api/use-alert-action';
 import { serverErrors, topLevelField } from '../utils/server-errors';
 import { defaultShelveHours, shelveUntilProblem } from '../utils/shelve-limits';
 import { FormError } from './form-error';
-import { TextAreaField } from './text-area-field';
 
 type ShelveFormProps = { alertId: string; timeZone: string; onDone: () => void };
 
@@ -65,7 +65,8 @@ export function ShelveForm({ alertId, timeZone, onDone }: ShelveFormProps) {
           />
         )}
       </Field>
-      <TextAreaField
+      <NoteField
+        rows={3}
         label="Reason"
         hint="Who reads the timeline later should understand why nobody was called."
         value={reason}

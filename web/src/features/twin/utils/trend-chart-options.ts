@@ -21,7 +21,7 @@ const AXIS = {
 /** Ink first, then the shared line colours, skipping the twin colour, which only the model's lines wear. */
 export const lineColour = (i: number) => seriesColour(i === 0 ? 0 : i + 1);
 
-type ChartOptions = Omit<uPlot.Options, 'width' | 'height'>;
+export type ChartOptions = Omit<uPlot.Options, 'width' | 'height'>;
 export type TrendChartContext = { timeZone: string; syncKey: string; cursor: CursorStore };
 
 const line = (label: string, stroke: string, extra: Partial<uPlot.Series> = {}): uPlot.Series => ({
@@ -33,6 +33,43 @@ const line = (label: string, stroke: string, extra: Partial<uPlot.Series> = {}):
 });
 const edge = (label: string): uPlot.Series => ({ label, stroke: 'transparent', width: 0, points: { show: false } });
 
+/**
+ * A chart over plant time: x in epoch seconds shown in the plant's time zone, y with its label and
+ * three significant figures, no legend, no drag zoom. The trend, alert snapshot and alert-load
+ * charts build on it.
+ */
+export function plantTimeChartOptions(spec: {
+  timeZone: string;
+  yLabel: string;
+  ySize?: number;
+  series: uPlot.Series[];
+}): ChartOptions {
+  return {
+    tzDate: (seconds) => uPlot.tzDate(new Date(seconds * 1000), spec.timeZone),
+    scales: { x: { time: true } },
+    legend: { show: false },
+    cursor: { drag: { x: false, y: false } },
+    axes: [
+      {
+        ...AXIS,
+        space: 70,
+        label: `plant time (${spec.timeZone})`,
+        values: (u, splits) => {
+          const spanMs = ((u.scales.x.max ?? 0) - (u.scales.x.min ?? 0)) * 1000;
+          return splits.map((s) => formatAxisTime(s * 1000, spec.timeZone, spanMs));
+        },
+      },
+      {
+        ...AXIS,
+        label: spec.yLabel,
+        size: spec.ySize ?? 64,
+        values: (_u, splits) => splits.map((s) => formatNumber(s, 3)),
+      },
+    ],
+    series: [{}, ...spec.series],
+  };
+}
+
 function baseOptions(
   context: TrendChartContext,
   yLabel: string,
@@ -40,23 +77,8 @@ function baseOptions(
   extra: Partial<ChartOptions> = {},
 ): ChartOptions {
   return {
-    tzDate: (seconds) => uPlot.tzDate(new Date(seconds * 1000), context.timeZone),
-    scales: { x: { time: true } },
-    legend: { show: false },
+    ...plantTimeChartOptions({ timeZone: context.timeZone, yLabel, series }),
     cursor: { sync: { key: context.syncKey }, drag: { x: false, y: false } },
-    axes: [
-      {
-        ...AXIS,
-        space: 70,
-        label: `plant time (${context.timeZone})`,
-        values: (u, splits) => {
-          const spanMs = ((u.scales.x.max ?? 0) - (u.scales.x.min ?? 0)) * 1000;
-          return splits.map((s) => formatAxisTime(s * 1000, context.timeZone, spanMs));
-        },
-      },
-      { ...AXIS, label: yLabel, size: 64, values: (_u, splits) => splits.map((s) => formatNumber(s, 3)) },
-    ],
-    series: [{}, ...series],
     hooks: {
       setCursor: [
         (u) =>

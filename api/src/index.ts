@@ -1,7 +1,7 @@
 import http from 'node:http';
 import { listenForCacheNotices } from './workers/cache-notices.js';
 import { pino } from 'pino';
-import pg from 'pg';
+import { createPgPool } from './lib/pg-pool.js';
 import { createApp } from './app.js';
 import { loadConfig } from './config/config.js';
 import { createDb } from './db/knex.js';
@@ -13,7 +13,9 @@ import { startAlertWorkers } from './workers/alert-workers.js';
 /** The api process: parse config, connect, listen, shut down cleanly on SIGTERM. */
 const config = loadConfig();
 const logger = pino({ level: config.LOG_LEVEL, name: 'api' });
-const pool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 10 });
+const pool = createPgPool(config.DATABASE_URL, 10, (error) =>
+  logger.warn({ err: error }, 'an idle database connection was closed by the server'),
+);
 const db = createDb(config.DATABASE_URL);
 const publisher = createTwinPublisher();
 const partitions = createPartitionKeeper(db);

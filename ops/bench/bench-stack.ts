@@ -1,12 +1,13 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import pg from 'pg';
+import type pg from 'pg';
 import { createDb, type Db } from '../../api/src/db/knex.js';
 import { ensureDatabase, migrateAndSeed, withDatabase } from '../lib/database.js';
 import { freePort } from '../lib/ports.js';
 import { startCluster } from '../lib/postgres.js';
 import { startService, stopServices, waitForHttp } from '../lib/processes.js';
+import { createPgPool } from '../../api/src/lib/pg-pool.js';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
@@ -37,7 +38,7 @@ export async function startBenchStack(): Promise<BenchStack> {
     const databaseUrl = withDatabase(cluster.adminUrl(), 'shadowloop_bench');
     await migrateAndSeed(databaseUrl, { seed: true });
     const db = createDb(databaseUrl, 4);
-    const pool = new pg.Pool({ connectionString: databaseUrl, max: 4 });
+    const pool = createPgPool(databaseUrl, 4);
     // the api in a process of its own, as in a site installation: the bench's clients do not share its thread
     const port = await freePort();
     const url = `http://127.0.0.1:${port}`;

@@ -10,7 +10,6 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import knexFactory from 'knex';
-import pg from 'pg';
 import { createTwinRegistry } from '../../simulator/src/registry/twin-registry.js';
 import { createSampleEmitter, createTwinService, type TickReport } from '../../simulator/src/twin/index.js';
 import { ensureDatabase, migrateAndSeed, withDatabase } from '../lib/database.js';
@@ -18,6 +17,7 @@ import { freePort } from '../lib/ports.js';
 import { startCluster } from '../lib/postgres.js';
 import { printBenchTable, type BenchRow } from './engine-bench.js';
 import { createBenchLoops, insertBenchReadings, type BenchPlantShape } from './twin-bench-plant.js';
+import { createPgPool } from '../../api/src/lib/pg-pool.js';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SHAPE: BenchPlantShape = { loops: 2000, states: 10, inputs: 2, outputs: 2, samplePeriodS: 1 };
@@ -47,7 +47,7 @@ async function measure(databaseUrl: string, warmUpS: number, windowS: number) {
   const stopFeeder = startFeeder(db);
   const registry = createTwinRegistry({ db, databaseUrl, log: () => undefined });
   await registry.start();
-  const socketPool = new pg.Pool({ connectionString: databaseUrl, max: 4 });
+  const socketPool = createPgPool(databaseUrl, 4);
   const emitter = createSampleEmitter(socketPool);
   const ticks: TickReport[] = [];
   let recording = false;

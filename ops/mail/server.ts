@@ -1,7 +1,7 @@
 import type { AddressInfo } from 'node:net';
 import { simpleParser, type AddressObject } from 'mailparser';
-import pg from 'pg';
 import { SMTPServer } from 'smtp-server';
+import { createPgPool } from '../../api/src/lib/pg-pool.js';
 
 export interface MailServer {
   port: number;
@@ -20,7 +20,7 @@ const addresses = (field: AddressObject | AddressObject[] | undefined): string[]
  * admins read it through /api/v1/dev/mail. It stands in for the site's mail relay.
  */
 export async function startMailServer(options: { port: number; databaseUrl: string }): Promise<MailServer> {
-  const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 2 });
+  const pool = createPgPool(options.databaseUrl, 2);
   let repeatsDropped = 0;
   const server = new SMTPServer({
     authOptional: true,

@@ -28,7 +28,10 @@ await registry.start();
 
 // the socket.io adapter keeps one of these connections for its LISTEN
 const socketPool = new pg.Pool({ connectionString: databaseUrl, max: 4 });
-socketPool.on('error', (error) => console.error(`simulator socket pool: ${error.message}`));
+// idle clients report on the pool, checked-out ones (that LISTEN) on themselves: neither may end the process
+const socketPoolError = (error: Error) => console.error(`simulator socket pool: ${error.message}`);
+socketPool.on('error', socketPoolError);
+socketPool.on('connect', (client) => client.on('error', socketPoolError));
 const emitter = createSampleEmitter(socketPool);
 const twins = createTwinService({
   db,

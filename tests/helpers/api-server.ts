@@ -1,7 +1,6 @@
 import http from 'node:http';
 import { listenForCacheNotices } from '../../api/src/workers/cache-notices.js';
 import type { AddressInfo } from 'node:net';
-import pg from 'pg';
 import { pino } from 'pino';
 import { createApp } from '../../api/src/app.js';
 import { loadConfig } from '../../api/src/config/config.js';
@@ -11,6 +10,7 @@ import { createRealtime } from '../../api/src/realtime/realtime.js';
 import { startAlertWorkers, type AlertWorkers } from '../../api/src/workers/alert-workers.js';
 import { freePort } from '../../ops/lib/ports.js';
 import type { StackInfo } from './test-env.js';
+import { createPgPool } from '../../api/src/lib/pg-pool.js';
 
 export interface RunningApi {
   url: string;
@@ -37,7 +37,7 @@ export async function startApi(stack: StackInfo, env: Record<string, string> = {
     SIGN_IN_RATE_LIMIT_PER_MINUTE: '1000',
     ...env,
   });
-  const pool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
+  const pool = createPgPool(config.DATABASE_URL, 5);
   const db = createDb(config.DATABASE_URL, 5);
   const logger = pino({ level: 'silent' });
   const publisher = createTwinPublisher();

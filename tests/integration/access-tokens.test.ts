@@ -1,15 +1,15 @@
 import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { startApi, type RunningApi } from '../helpers/api-server.js';
 import { SessionClient, tokenRequest } from '../helpers/session-client.js';
+import { createPgPool } from '../../api/src/lib/pg-pool.js';
 
 const stack = inject('stack');
 let api: RunningApi;
 let operator: SessionClient;
 let admin: SessionClient;
-const db = new pg.Pool({ connectionString: stack.databaseUrl, max: 2 });
+const db = createPgPool(stack.databaseUrl, 2);
 
 beforeAll(async () => {
   api = await startApi(stack);

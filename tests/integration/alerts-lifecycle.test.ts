@@ -1,6 +1,5 @@
 import { randomBytes, randomUUID } from 'node:crypto';
 import { createAdapter } from '@socket.io/postgres-adapter';
-import pg from 'pg';
 import { Server } from 'socket.io';
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Alert, AlertSuppression, AlertWithEvents } from '../../api/src/contracts/alerts.js';
@@ -33,6 +32,7 @@ import {
   TWO_OUTPUTS,
 } from '../helpers/twin-fixtures.js';
 import { collect, connected, twinSocket, type TwinSocket } from '../helpers/twin-socket.js';
+import { createPgPool } from '../../api/src/lib/pg-pool.js';
 
 const stack = inject('stack');
 const ADMIN = 'admin@quillmere.example';
@@ -401,7 +401,7 @@ describe('live alert events', () => {
     const raisedSeen = collect(socket, 'alert:raised');
     const updatedSeen = collect(socket, 'alert:updated');
     // a second process on the same adapter, as the ingest of another api process would publish
-    const adapterPool = new pg.Pool({ connectionString: stack.databaseUrl, max: 2 });
+    const adapterPool = createPgPool(stack.databaseUrl, 2);
     const io: RealtimeServer = new Server({ adapter: createAdapter(adapterPool) });
     const publisher = createTwinPublisher();
     publisher.attach(io);

@@ -1,12 +1,12 @@
 import nodemailer from 'nodemailer';
-import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { startApi, type RunningApi } from '../helpers/api-server.js';
 import { SessionClient } from '../helpers/session-client.js';
+import { createPgPool } from '../../api/src/lib/pg-pool.js';
 
 const stack = inject('stack');
 let api: RunningApi;
-const db = new pg.Pool({ connectionString: stack.databaseUrl, max: 2 });
+const db = createPgPool(stack.databaseUrl, 2);
 type Health = { status: string; checks: Record<string, { ok: boolean; detail?: string }> };
 
 beforeAll(async () => {
@@ -36,6 +36,22 @@ describe('health', () => {
     );
     const body = (await (await fetch(`${api.url}/api/health`)).json()) as Health;
     expect(body.status).toBe('ok');
+  });
+
+  it('keeps serving after the database server closes its idle connections', async () => {
+    // a signed-in request fills the session pool; a database restart or an administrator's terminate
+    // then closes those connections, and an unhandled pool error would end the api process
+    const admin = new SessionClient(api.url);
+    await admin.signIn('admin@quillmere.example');
+    expect((await admin.request('GET', '/api/v1/me')).status).toBe(200);
+    const ended = await db.query(
+      "SELECT count(*)::int AS n FROM (SELECT pg_terminate_backend(pid) FROM pg_stat_activity WHERE datname = current_database() AND pid <> pg_backend_pid() AND backend_type = 'client backend') t",
+    );
+    expect(ended.rows[0].n).toBeGreaterThan(0);
+    await new Promise((resolve) => setTimeout(resolve, 200));
+    const response = await fetch(`${api.url}/api/health`);
+    expect(response.status).toBe(200);
+    expect((await admin.request('GET', '/api/v1/me')).status).toBe(200);
   });
 
   it('answers 503 when the database does not', async () => {

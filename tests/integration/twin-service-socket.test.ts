@@ -2,7 +2,7 @@ import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { createAdapter } from '@socket.io/postgres-adapter';
 import knexFactory, { type Knex } from 'knex';
-import pg from 'pg';
+import type pg from 'pg';
 import { Server } from 'socket.io';
 import { io as connect, type Socket } from 'socket.io-client';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
@@ -15,6 +15,7 @@ import {
 import { createSampleEmitter } from '../../simulator/src/twin/index.js';
 import { createArea, insertLoop, insertReadings, slotOf } from '../helpers/twin-service-fixtures.js';
 import { eventually, startTwins, type RunningTwins } from '../helpers/twin-service-runner.js';
+import { createPgPool } from '../../api/src/lib/pg-pool.js';
 
 const stack = inject('stack');
 const PERIOD_S = 0.5;
@@ -28,10 +29,7 @@ let twins: RunningTwins | undefined;
 
 beforeAll(async () => {
   db = knexFactory({ client: 'pg', connection: stack.databaseUrl, pool: { min: 0, max: 4 } });
-  [serverPool, simulatorPool] = [
-    new pg.Pool({ connectionString: stack.databaseUrl, max: 3 }),
-    new pg.Pool({ connectionString: stack.databaseUrl, max: 3 }),
-  ];
+  [serverPool, simulatorPool] = [createPgPool(stack.databaseUrl, 3), createPgPool(stack.databaseUrl, 3)];
   // a plain socket.io server, as the api runs it: same adapter, sockets join the rooms they watch
   httpServer = http.createServer();
   io = new Server(httpServer, { adapter: createAdapter(serverPool) });

@@ -1,6 +1,6 @@
 import type http from 'node:http';
 import { createAdapter } from '@socket.io/postgres-adapter';
-import pg from 'pg';
+import type pg from 'pg';
 import type { Logger } from 'pino';
 import { Server } from 'socket.io';
 import type { Config } from '../config/config.js';
@@ -10,6 +10,7 @@ import type { RealtimeServer } from './realtime-types.js';
 import { listenForRevocations } from './access-revocation.js';
 import { authenticateSockets } from './socket-auth.js';
 import { registerWatchHandlers } from './watch-handlers.js';
+import { createPgPool } from '../lib/pg-pool.js';
 
 export interface RealtimeDeps {
   config: Config;
@@ -27,8 +28,9 @@ export interface RealtimeDeps {
  * HTTP server (io.close does all three), then ends the adapter's pool.
  */
 export function createRealtime(server: http.Server, deps: RealtimeDeps) {
-  const adapterPool = new pg.Pool({ connectionString: deps.config.DATABASE_URL, max: 3 });
-  adapterPool.on('error', (error) => deps.logger.warn({ err: error }, 'realtime adapter connection failed'));
+  const adapterPool = createPgPool(deps.config.DATABASE_URL, 3, (error) =>
+    deps.logger.warn({ err: error }, 'realtime adapter connection failed'),
+  );
   const io: RealtimeServer = new Server(server, {
     serveClient: false,
     // Browsers send Origin: a page of another origin must not open a socket with our session cookie.

@@ -1,5 +1,5 @@
 import knexFactory from 'knex';
-import pg from 'pg';
+import { createPgPool } from './lib/pg-pool.js';
 import { startHeartbeat } from './heartbeat.js';
 import { createTwinRegistry, type SwapEvent } from './registry/twin-registry.js';
 import { createSampleEmitter, createTwinService } from './twin/index.js';
@@ -27,11 +27,7 @@ const registry = createTwinRegistry({
 await registry.start();
 
 // the socket.io adapter keeps one of these connections for its LISTEN
-const socketPool = new pg.Pool({ connectionString: databaseUrl, max: 4 });
-// idle clients report on the pool, checked-out ones (that LISTEN) on themselves: neither may end the process
-const socketPoolError = (error: Error) => console.error(`simulator socket pool: ${error.message}`);
-socketPool.on('error', socketPoolError);
-socketPool.on('connect', (client) => client.on('error', socketPoolError));
+const socketPool = createPgPool(databaseUrl, 4, (error) => console.error(`simulator socket pool: ${error.message}`));
 const emitter = createSampleEmitter(socketPool);
 const twins = createTwinService({
   db,

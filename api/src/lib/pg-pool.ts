@@ -1,20 +1,2 @@
-import pg from 'pg';
-
-/**
- * A node-postgres pool that survives the server closing its connections (a database restart, an
- * administrator's terminate, a dropped test database). node-postgres emits such an error on the
- * pool for an idle client and on the client itself for one that is checked out (a LISTEN
- * connection held by a library, such as the socket.io adapter's); an `error` event nobody listens
- * to ends the whole process. Here every client gets a listener when it connects, so the error is
- * reported instead; the pool discards the broken client and its holder sees the connection end.
- */
-export function createPgPool(
-  connectionString: string,
-  max: number,
-  onConnectionError: (error: Error) => void = () => undefined,
-): pg.Pool {
-  const pool = new pg.Pool({ connectionString, max });
-  pool.on('error', onConnectionError);
-  pool.on('connect', (client) => client.on('error', onConnectionError));
-  return pool;
-}
+// the pool every process uses, from the lower package so that the simulator shares it
+export { createPgPool } from '@shadowloop/simulator/pg-pool';

@@ -27,6 +27,7 @@ import { registerHealthRoutes } from './modules/health/health.routes.js';
 import { registerUserRoutes } from './modules/users/users.routes.js';
 import { registerLiveTwinRoutes } from './modules/live-twin.routes.js';
 import { registerAlertingRoutes } from './modules/alert.routes.js';
+import { registerBacktestRoutes } from './modules/backtests/backtests.routes.js';
 import { createAckLinkRouter } from './modules/mail/ack-link.router.js';
 import { configureAlertMail } from './modules/mail/alert-mail.js';
 import { createPartitionKeeper, type PartitionKeeper } from './modules/readings/partitions.js';
@@ -106,6 +107,7 @@ export function createApp(deps: AppDeps): Express {
     publisher,
   });
   registerAlertingRoutes(routes, { config, db, publisher });
+  registerBacktestRoutes(routes, { db, config });
   const openApi = buildOpenApi(routes, deps.version);
   routes.add(
     {

@@ -9,6 +9,7 @@ import { createPartitionKeeper } from './modules/readings/partitions.js';
 import { createTwinPublisher } from './realtime/publisher.js';
 import { createRealtime } from './realtime/realtime.js';
 import { startAlertWorkers } from './workers/alert-workers.js';
+import { startBacktestWorker } from './workers/backtest-worker.js';
 
 /** The api process: parse config, connect, listen, shut down cleanly on SIGTERM. */
 const config = loadConfig();
@@ -32,6 +33,7 @@ const server = http.createServer(app);
 const realtime = createRealtime(server, { config, db, pool, logger, publisher });
 const stopPartitionUpkeep = partitions.startUpkeep(logger);
 const workers = config.ALERT_WORKERS ? startAlertWorkers({ db, config, logger, publisher }) : null;
+const backtests = config.BACKTEST_WORKERS ? startBacktestWorker({ db, pool, config, logger }) : null;
 const cacheNotices = listenForCacheNotices(pool, logger);
 server.listen(config.PORT, config.HOST, () => logger.info(`api listening on ${config.PUBLIC_URL}`));
 
@@ -43,6 +45,7 @@ async function shutdown(): Promise<void> {
   stopPartitionUpkeep();
   server.closeAllConnections();
   await workers?.stop();
+  await backtests?.stop();
   await cacheNotices.stop();
   await realtime.close();
   await db.destroy();

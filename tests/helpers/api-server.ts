@@ -8,6 +8,7 @@ import { createDb } from '../../api/src/db/knex.js';
 import { createTwinPublisher } from '../../api/src/realtime/publisher.js';
 import { createRealtime } from '../../api/src/realtime/realtime.js';
 import { startAlertWorkers, type AlertWorkers } from '../../api/src/workers/alert-workers.js';
+import { startBacktestWorker, type BacktestWorker } from '../../api/src/workers/backtest-worker.js';
 import { freePort } from '../../ops/lib/ports.js';
 import type { StackInfo } from './test-env.js';
 import { createPgPool } from '../../api/src/lib/pg-pool.js';
@@ -16,6 +17,8 @@ export interface RunningApi {
   url: string;
   /** The alert workers (mail sender, sweep), unless ALERT_WORKERS was 'false'. */
   workers: AlertWorkers | null;
+  /** The backtest worker, unless BACKTEST_WORKERS was 'false'. */
+  backtests: BacktestWorker | null;
   close(): Promise<void>;
 }
 
@@ -46,14 +49,17 @@ export async function startApi(stack: StackInfo, env: Record<string, string> = {
   const realtime = createRealtime(server, { config, db, pool, logger, publisher });
   await new Promise<void>((resolve) => server.listen(port, '127.0.0.1', resolve));
   const workers = config.ALERT_WORKERS ? startAlertWorkers({ db, config, logger, publisher }) : null;
+  const backtests = config.BACKTEST_WORKERS ? startBacktestWorker({ db, pool, config, logger }) : null;
   const cacheNotices = listenForCacheNotices(pool, logger);
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   return {
     url,
     workers,
+    backtests,
     close: async () => {
       server.closeAllConnections();
       await workers?.stop();
+      await backtests?.stop();
       await cacheNotices.stop();
       await realtime.close();
       await db.destroy();

@@ -37,6 +37,9 @@ const ConfigSchema = z.object({
   /** First retry after an SMTP failure; doubles per attempt up to MAIL_RETRY_MAX_MS. */
   MAIL_RETRY_BASE_MS: z.coerce.number().int().min(10).default(5000),
   MAIL_RETRY_MAX_MS: z.coerce.number().int().min(10).default(300_000),
+  /** The api runs queued backtests (one at a time per process); how often an idle worker looks for one. */
+  BACKTEST_WORKERS: flag.default(true),
+  BACKTEST_POLL_INTERVAL_MS: z.coerce.number().int().min(50).default(2000),
 });
 
 export type Config = Omit<z.infer<typeof ConfigSchema>, 'PUBLIC_URL'> & { PUBLIC_URL: string };

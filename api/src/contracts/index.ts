@@ -5,3 +5,4 @@ export * from './registry.js';
 export * from './ingest.js';
 export * from './twin.js';
 export * from './alerts.js';
+export * from './backtests.js';

@@ -38,19 +38,30 @@ const ColumnRef = z.union([z.string().min(1), z.number().int().min(0)]);
 export const ImportMappingSchema = z.object({ t: ColumnRef, u: z.array(ColumnRef), y: z.array(ColumnRef) });
 export type ImportMapping = z.infer<typeof ImportMappingSchema>;
 
-/** The text fields of the multipart import request; send them before the file part. */
-export const ImportFieldsSchema = z.object({
-  mapping: z
+/** A multipart text field holding JSON, parsed and then checked against `schema`. */
+export function jsonField<T extends z.ZodType>(schema: T, notJson: string) {
+  return z
     .string()
     .transform((text, ctx) => {
       try {
         return JSON.parse(text) as unknown;
       } catch {
-        ctx.addIssue({ code: 'custom', message: 'mapping is not JSON, e.g. {"t":"time","u":["valve"],"y":["level"]}' });
+        ctx.addIssue({ code: 'custom', message: notJson });
         return z.NEVER;
       }
     })
-    .pipe(ImportMappingSchema),
+    .pipe(schema);
+}
+
+/** The column mapping as a multipart field (imports and uploaded backtests). */
+export const MappingFieldSchema = jsonField(
+  ImportMappingSchema,
+  'mapping is not JSON, e.g. {"t":"time","u":["valve"],"y":["level"]}',
+);
+
+/** The text fields of the multipart import request; send them before the file part. */
+export const ImportFieldsSchema = z.object({
+  mapping: MappingFieldSchema,
   importId: z.uuid().optional(),
 });
 

@@ -124,7 +124,11 @@ export const AnalysisBodySchema = z.object({
   stepSamples: z.number().int().min(1).max(5000).optional(),
 });
 
-export const SubmitBodySchema = z.object({ justification: z.string().trim().max(4000).optional() });
+export const SubmitBodySchema = z.object({
+  justification: z.string().trim().max(4000).optional(),
+  /** Succeeded backtests of the loop that replayed this version, attached as evidence in the same step. */
+  backtestIds: z.array(z.uuid()).max(8).optional(),
+});
 export const ApproveBodySchema = z.object({ note: z.string().trim().max(4000).optional() });
 export const RejectBodySchema = z.object({ reason: z.string().trim().min(1, 'give the author a reason').max(4000) });
 export const ActivateBodySchema = z.object({

@@ -1,6 +1,7 @@
 import type { Request, Response } from 'express';
 import multer from 'multer';
 import type { Readable } from 'node:stream';
+import type { z } from 'zod';
 import { AppError, badRequest } from '../../http/errors.js';
 
 export interface IncomingCsv {
@@ -75,4 +76,19 @@ export function receiveCsv<T>(
       resolve(outcome.value);
     });
   });
+}
+
+/**
+ * The text fields of a multipart upload checked against `schema`; 400 naming each bad field
+ * (`body.mapping: …`) after `what` (e.g. "The import fields are not valid (send them before the file)").
+ */
+export function parseUploadFields<T extends z.ZodType>(
+  schema: T,
+  fields: Record<string, unknown>,
+  what: string,
+): z.infer<T> {
+  const parsed = schema.safeParse(fields);
+  if (parsed.success) return parsed.data;
+  const details = parsed.error.issues.map((i) => ({ path: ['body', ...i.path].join('.'), message: i.message }));
+  throw badRequest(`${what}: ${details.map((d) => `${d.path}: ${d.message}`).join('; ')}`, details);
 }

@@ -1,19 +1,17 @@
 import { randomUUID } from 'node:crypto';
-import { pipeline } from 'node:stream/promises';
 import type { Request, Response } from 'express';
-import Papa from 'papaparse';
 import type pg from 'pg';
 import type { SignedInUser } from '../../auth/user.js';
-import { ImportFieldsSchema, INGEST_LIMITS, type ImportMapping, type ImportProgress } from '../../contracts/ingest.js';
+import { ImportFieldsSchema, type ImportMapping, type ImportProgress } from '../../contracts/ingest.js';
 import type { Db } from '../../db/knex.js';
-import { AppError, badRequest } from '../../http/errors.js';
+import { AppError } from '../../http/errors.js';
 import { requireLiveLoop, type LiveLoop } from '../readings/live-loop.js';
 import type { PartitionKeeper } from '../readings/partitions.js';
 import type { CheckedReading, ReadingRules } from '../readings/reading-checks.js';
 import { utcDay } from '../readings/sample-grid.js';
 import { forgetTrendMinutes } from '../series/trend-minutes.js';
-import { checkRow, planColumns, type ColumnPlan } from './csv-rows.js';
-import { receiveCsv, type IncomingCsv } from './csv-upload.js';
+import { readCheckedRows } from './checked-rows.js';
+import { parseUploadFields, receiveCsv, type IncomingCsv } from './csv-upload.js';
 import { insertImport, updateImport, type ProgressUpdate } from './import-progress.repository.js';
 import { openImportWriter } from './import-writer.js';
 
@@ -26,18 +24,6 @@ export interface ImportDeps {
 }
 
 const CHUNK_ROWS = 20_000;
-
-function parseFields(fields: Record<string, unknown>) {
-  const parsed = ImportFieldsSchema.safeParse(fields);
-  if (!parsed.success) {
-    const details = parsed.error.issues.map((i) => ({ path: ['body', ...i.path].join('.'), message: i.message }));
-    throw badRequest(
-      `The import fields are not valid (send them before the file): ${details.map((d) => `${d.path}: ${d.message}`).join('; ')}`,
-      details,
-    );
-  }
-  return parsed.data;
-}
 
 type Writer = Awaited<ReturnType<typeof openImportWriter>>;
 
@@ -84,39 +70,6 @@ function chunkStore(
   };
 }
 
-/**
- * Reads the CSV row by row (papaparse on the upload stream), checks each row like a posted reading
- * and hands the good ones to the store; line 1 is the header.
- */
-async function readRows(
-  csv: IncomingCsv,
-  mapping: ImportMapping,
-  rules: ReadingRules,
-  tally: ProgressUpdate,
-  store: ReturnType<typeof chunkStore>,
-) {
-  let plan: ColumnPlan | undefined;
-  let line = 0;
-  await pipeline(csv.stream, Papa.parse(Papa.NODE_STREAM_INPUT, {}), async (rows: AsyncIterable<string[]>) => {
-    for await (const row of rows) {
-      line += 1;
-      if (!plan)
-        plan = planColumns(
-          row.map((cell, i) => (i === 0 ? cell.replace(/^\uFEFF/, '') : cell)),
-          mapping,
-          rules,
-        );
-      else if (row.length > 1 || row[0].trim() !== '') {
-        tally.rowsRead += 1;
-        const check = checkRow(row, plan, rules);
-        if (check.ok) await store.add(line, check.reading);
-        else if (++tally.rejected <= INGEST_LIMITS.reportedBadRows) tally.badRows.push({ line, reason: check.reason });
-      }
-    }
-  });
-  if (!plan) throw badRequest('The file is empty: the first line must name the columns.');
-}
-
 async function runImport(
   deps: ImportDeps,
   loop: LiveLoop,
@@ -144,7 +97,7 @@ async function runImport(
       earliestMs: -Infinity,
       tooOldAdvice: '',
     };
-    await readRows(csv, mapping, rules, tally, store);
+    await readCheckedRows(csv, mapping, rules, tally, store.add);
     await store.flush();
     await writer.close(false);
     return await updateImport(deps.db, id, { ...tally, done: true });
@@ -165,7 +118,11 @@ export async function importCsv(
 ): Promise<ImportProgress> {
   const loop = await requireLiveLoop(deps.db, loopId);
   return receiveCsv(req, res, deps.maxFileBytes, async (csv) => {
-    const fields = parseFields(csv.fields);
+    const fields = parseUploadFields(
+      ImportFieldsSchema,
+      csv.fields,
+      'The import fields are not valid (send them before the file)',
+    );
     const progress = await insertImport(deps.db, {
       id: fields.importId ?? randomUUID(),
       loopId: loop.id,

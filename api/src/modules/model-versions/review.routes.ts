@@ -22,9 +22,10 @@ export function registerReviewRoutes(routes: RouteTable, db: Db, publisher?: Twi
       ...action,
       path: '/api/v1/model-versions/:id/submit',
       body: SubmitBodySchema,
-      summary: 'Submit your draft for review; an unstable or marginal model needs a justification (422 otherwise)',
+      summary:
+        'Submit your draft for review; an unstable or marginal model needs a justification (422 otherwise); backtestIds attach succeeded backtests of the loop that include this version as evidence in the same step',
     },
-    ({ user, req, body }) => submitVersion(db, user, id(req.params), body.justification),
+    ({ user, req, body }) => submitVersion(db, user, id(req.params), body.justification, body.backtestIds),
   );
 
   routes.add(

@@ -3,11 +3,22 @@ import type { Db } from '../../db/knex.js';
 import { AppError, forbidden } from '../../http/errors.js';
 import { findActiveVersionId, updateVersion } from './model-versions.repository.js';
 import { clearAlert } from '../alerts/alert-raise.js';
+import { attachWithin } from '../backtests/evidence.service.js';
 import { notifyActiveChanged } from './activation.service.js';
 import { changeVersion, describeVersion, requireSecondEngineer, requireStatus } from './version-change.js';
 
-/** draft → in_review, by its author; an unstable or marginal model needs a written justification. */
-export function submitVersion(db: Db, actor: SignedInUser, id: string, justification: string | undefined) {
+/**
+ * draft → in_review, by its author; an unstable or marginal model needs a written justification.
+ * Backtests named in `backtestIds` are attached as evidence in the same transaction (same checks as
+ * POST …/evidence; one refused backtest refuses the submission).
+ */
+export function submitVersion(
+  db: Db,
+  actor: SignedInUser,
+  id: string,
+  justification: string | undefined,
+  backtestIds: string[] = [],
+) {
   return changeVersion(db, actor, id, 'submitted', async (trx, version) => {
     requireStatus(version, ['draft'], 'submitted');
     if (version.authorId !== actor.id)
@@ -21,12 +32,17 @@ export function submitVersion(db: Db, actor: SignedInUser, id: string, justifica
           `${version.analysis.spectralRadius.toPrecision(6)}): say in a justification why the twin may run it.`,
       );
     }
+    for (const backtestId of new Set(backtestIds)) await attachWithin(trx, version, backtestId, null, actor.id);
     await updateVersion(trx, id, {
       status: 'in_review',
       submitted_at: trx.fn.now(),
       justification: justification || null,
     });
-    return { stability, justification: justification || undefined };
+    return {
+      stability,
+      justification: justification || undefined,
+      ...(backtestIds.length ? { backtestIds: [...new Set(backtestIds)] } : {}),
+    };
   });
 }
 

@@ -7,6 +7,7 @@ import { SignedInFrame } from '../components/layouts/signed-in-frame';
 import { PageLoading } from '../components/ui/page-loading';
 import { sectionRole } from '../config/sections';
 import { accessTokensQueryOptions } from '../features/access-tokens/api/get-access-tokens';
+import { backtestQueryOptions } from '../features/backtests/api/get-backtest';
 import { RequireRole } from '../features/session/components/require-role';
 import { signedInUserLoader, warmCacheLoader } from './loaders';
 import { adminRoutes } from './routes/admin/admin-routes';
@@ -19,6 +20,9 @@ import { SignInPage } from './routes/signin';
 import { MyAccessTokensPage } from './routes/tokens';
 
 const rotaPage = async () => ({ Component: (await import('./routes/rota/rota-page')).RotaPage });
+const backtestPage = async () => ({
+  Component: (await import('./routes/backtests/backtest-page')).BacktestPage,
+});
 
 export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   return [
@@ -45,6 +49,12 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 },
                 { path: 'alerts', children: alertRoutes() },
                 { path: 'rota', HydrateFallback: PageLoading, lazy: rotaPage },
+                {
+                  path: 'backtests/:backtestId',
+                  loader: warmCacheLoader(queryClient, ({ params }) => backtestQueryOptions(params.backtestId ?? '')),
+                  HydrateFallback: PageLoading,
+                  lazy: backtestPage,
+                },
                 { path: 'about', element: <AboutPage /> },
                 {
                   path: 'tokens',

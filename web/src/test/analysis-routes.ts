@@ -30,6 +30,8 @@ export function analysisRoutes(version: Version, email: string, extra: FakeRoute
     ...engineerAs(email),
     [`GET /api/v1/loops/${LOOP.id}`]: { body: LOOP },
     [`GET /api/v1/model-versions/${version.id}`]: { body: version },
+    [`GET /api/v1/model-versions/${version.id}/evidence`]: { body: [] },
+    [`GET /api/v1/loops/${LOOP.id}/backtests`]: { body: [] },
     [`POST /api/v1/model-versions/${version.id}/explore`]: { body: EXPLORED },
     [`GET /api/v1/model-versions/${version.id}/analysis`]: ({ url }) => {
       const stepSamples = Number(new URL(url, 'http://shadowloop.test').searchParams.get('stepSamples'));

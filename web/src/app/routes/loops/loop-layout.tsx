@@ -39,6 +39,7 @@ export function LoopLayout() {
     { to: `${base}/model`, label: 'Twin model' },
     { to: `${base}/alerts`, label: 'Alerts' },
     { to: `${base}/rules`, label: 'Rules' },
+    { to: `${base}/backtests`, label: 'Backtests' },
     ...(seesLog ? [{ to: `${base}/log`, label: 'Log' }] : []),
   ];
   return (

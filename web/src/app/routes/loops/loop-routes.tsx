@@ -14,9 +14,10 @@ import { LoopTwinModelTab } from './loop-twin-model';
 import { LoopsPage } from './loops-page';
 import { RegisterLoopPage } from './register-loop';
 
-/** The alert and rule tabs (forms, the alert table) load when first opened. */
+/** The alert, rule and backtest tabs (forms, tables) load when first opened. */
 const alertsTab = async () => ({ Component: (await import('./loop-alerts')).LoopAlertsTab });
 const rulesTab = async () => ({ Component: (await import('./loop-rules')).LoopRulesTab });
+const backtestsTab = async () => ({ Component: (await import('./loop-backtests')).LoopBacktestsTab });
 
 export function loopRoutes(queryClient: QueryClient): RouteObject[] {
   return [
@@ -51,6 +52,7 @@ export function loopRoutes(queryClient: QueryClient): RouteObject[] {
         { path: 'model', element: <LoopTwinModelTab /> },
         { path: 'alerts', HydrateFallback: PageLoading, lazy: alertsTab },
         { path: 'rules', HydrateFallback: PageLoading, lazy: rulesTab },
+        { path: 'backtests', HydrateFallback: PageLoading, lazy: backtestsTab },
         { path: 'log', element: <LoopLogTab /> },
       ],
     },

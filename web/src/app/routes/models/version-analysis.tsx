@@ -4,6 +4,7 @@ import { Link, useParams } from 'react-router';
 import { ErrorNotice } from '../../../components/errors/error-notice';
 import { PageHeader } from '../../../components/ui/page-header';
 import { PageLoading } from '../../../components/ui/page-loading';
+import { VersionEvidence } from '../../../features/backtests/components/version-evidence';
 import { loopQueryOptions } from '../../../features/loops/api/get-loop';
 import { modelVersionQueryOptions } from '../../../features/models/api/get-model-version';
 import { EigenvaluePlane } from '../../../features/models/components/analysis/eigenvalue-plane';
@@ -65,6 +66,9 @@ export function VersionAnalysisPage() {
       <VerdictBanner verdict={buildVerdict(v.analysis, l.samplePeriodS)} />
       <VersionActionBar version={v} user={user} loop={l} />
       <VersionFacts version={v} timeZone={l.timeZone} />
+      <Section title="Evidence">
+        <VersionEvidence version={v} loopId={l.id} timeZone={l.timeZone} />
+      </Section>
       <Section title="Modes">
         <div className="grid items-start gap-4 xl:grid-cols-[20rem_1fr]">
           <EigenvaluePlane

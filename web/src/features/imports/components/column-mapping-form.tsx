@@ -11,6 +11,8 @@ type ColumnMappingFormProps = {
   preview: ImportPreview;
   busy: boolean;
   onImport: (values: MappingValues) => void;
+  /** The button's words: what happens to the mapped rows. */
+  submitLabel?: string;
 };
 
 function mappingResolver(preview: ImportPreview, loop: Loop): Resolver<MappingValues> {
@@ -22,7 +24,13 @@ function mappingResolver(preview: ImportPreview, loop: Loop): Resolver<MappingVa
 }
 
 /** Which CSV column holds the time and each signal (by name and unit); prefilled from matching headers. */
-export function ColumnMappingForm({ loop, preview, busy, onImport }: ColumnMappingFormProps) {
+export function ColumnMappingForm({
+  loop,
+  preview,
+  busy,
+  onImport,
+  submitLabel = 'Import readings',
+}: ColumnMappingFormProps) {
   const initial = initialMapping(preview, loop);
   const { register, handleSubmit, formState } = useForm<MappingValues>({
     defaultValues: initial,
@@ -83,7 +91,7 @@ export function ColumnMappingForm({ loop, preview, busy, onImport }: ColumnMappi
         )}
       </div>
       <Button type="submit" variant="primary" disabled={busy}>
-        Import readings
+        {submitLabel}
       </Button>
     </form>
   );

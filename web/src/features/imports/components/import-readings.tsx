@@ -1,7 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { ErrorNotice } from '../../../components/errors/error-notice';
-import { Field } from '../../../components/ui/field';
 import type { Loop } from '../../loops/api/get-loops';
 import { importProgressQueryOptions } from '../api/get-import';
 import { usePreviewImport } from '../api/preview-import';
@@ -12,6 +11,7 @@ import { ColumnMappingForm } from './column-mapping-form';
 import { CsvPreviewTable } from './csv-preview-table';
 import { ImportProgressView } from './import-progress-view';
 import { ImportResult } from './import-result';
+import { CsvFileField } from './csv-file-field';
 
 /** Choose a file → see its first rows → map the columns → import with progress → the tally. */
 export function ImportReadings({ loop }: { loop: Loop }) {
@@ -37,21 +37,11 @@ export function ImportReadings({ loop }: { loop: Loop }) {
 
   return (
     <div className="space-y-4">
-      <Field
+      <CsvFileField
         label="CSV file of readings"
         hint={`One row per sample: a time column and one column per input and output of ${loop.tag}. Rows for a slot that already has a reading count as duplicates.`}
-      >
-        {({ inputId, describedBy }) => (
-          <input
-            id={inputId}
-            aria-describedby={describedBy}
-            type="file"
-            accept=".csv,text/csv"
-            onChange={(e) => choose(e.target.files?.[0] ?? null)}
-            className="text-sm"
-          />
-        )}
-      </Field>
+        onChoose={choose}
+      />
       {preview.isPending ? <p role="status">Reading the first rows…</p> : null}
       {preview.isError ? <ErrorNotice error={preview.error} /> : null}
       {preview.data && file ? (

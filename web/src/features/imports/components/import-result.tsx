@@ -1,4 +1,4 @@
-import { Table, Td, Th } from '../../../components/ui/table';
+import { RejectedRowsTable } from './rejected-rows-table';
 import type { ImportProgress } from '../api/start-import';
 
 const count = (n: number) => n.toLocaleString('en-GB');
@@ -27,24 +27,7 @@ export function ImportResult({ result }: { result: ImportProgress }) {
         <dt>Rejected</dt>
         <dd>{count(result.rejected)}</dd>
       </dl>
-      {result.badRows.length ? (
-        <Table caption="Rejected rows">
-          <thead>
-            <tr>
-              <Th>Line</Th>
-              <Th>Why it was rejected</Th>
-            </tr>
-          </thead>
-          <tbody>
-            {result.badRows.map((row) => (
-              <tr key={row.line}>
-                <Td className="tabular-nums">{row.line}</Td>
-                <Td>{row.reason}</Td>
-              </tr>
-            ))}
-          </tbody>
-        </Table>
-      ) : null}
+      {result.badRows.length ? <RejectedRowsTable rows={result.badRows} caption="Rejected rows" /> : null}
       {unlisted > 0 ? (
         <p className="text-ink/75">
           {count(unlisted)} more rejected rows are not listed; fix the ones above and import the file again (accepted

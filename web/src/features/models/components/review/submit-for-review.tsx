@@ -1,16 +1,29 @@
+import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Button } from '../../../../components/ui/button';
 import { Field, INPUT_CLASSES } from '../../../../components/ui/field';
-import { useSubmitVersion } from '../../api/submit-version';
+import { backtestKeys } from '../../../backtests/api/backtest-keys';
+import { EvidencePicker } from '../../../backtests/components/evidence-picker';
+import { useSubmitVersion, type SubmitBody } from '../../api/submit-version';
 import type { Version } from '../../types';
 import { ActionError } from './action-error';
 
-/** Sends a draft to review; a model that is not stable needs a reason the reviewer can weigh. */
+/** Sends a draft to review, with the backtests ticked as evidence; a model that is not stable needs a reason the reviewer can weigh. */
 export function SubmitForReview({ version }: { version: Version }) {
   const [justification, setJustification] = useState('');
+  const [backtestIds, setBacktestIds] = useState<string[]>([]);
+  const queryClient = useQueryClient();
   const submit = useSubmitVersion(version.id);
   const needsReason = version.analysis.stability !== 'stable';
   const missing = needsReason && justification.trim() === '';
+
+  const send = () => {
+    const body: SubmitBody = {
+      ...(needsReason ? { justification: justification.trim() } : {}),
+      ...(backtestIds.length ? { backtestIds } : {}),
+    };
+    submit.mutate(body, { onSuccess: () => void queryClient.invalidateQueries({ queryKey: backtestKeys.all }) });
+  };
 
   return (
     <div className="space-y-2">
@@ -31,11 +44,8 @@ export function SubmitForReview({ version }: { version: Version }) {
           )}
         </Field>
       ) : null}
-      <Button
-        variant="primary"
-        disabled={missing || submit.isPending}
-        onClick={() => submit.mutate(needsReason ? { justification: justification.trim() } : {})}
-      >
+      <EvidencePicker version={version} picked={backtestIds} onChange={setBacktestIds} />
+      <Button variant="primary" disabled={missing || submit.isPending} onClick={send}>
         {submit.isPending ? 'Submitting…' : 'Submit for review'}
       </Button>
       <ActionError error={submit.error} />

@@ -210,7 +210,7 @@ export async function runBacktestBench(): Promise<BenchRow[]> {
       {
         name: 'backtest: longest event-loop pause while it runs (other requests of that api process wait this long at most)',
         target: 'information',
-        measured: `${longestPauseMs.toFixed(0)} ms (replay yields every 20,000 slots; figures, rules and chart are one pass each)`,
+        measured: `${longestPauseMs.toFixed(0)} ms (the versions are replayed in a worker thread; the api thread only reads the recording and compares)`,
         met: null,
       },
       {

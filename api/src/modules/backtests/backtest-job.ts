@@ -9,7 +9,7 @@ import { decimateChart } from './backtest-chart.js';
 import { loadReplayVersions } from './backtest-versions.js';
 import { loadRangeRecording, loadUploadRecording, type Recording } from './recording.js';
 import { requireEnoughReadings } from './backtests.service.js';
-import { replayVersion, type ReplayedVersion } from './version-replay.js';
+import { replayVersions, type ReplayedVersion } from './version-replay.js';
 
 export interface JobDeps {
   db: Db;
@@ -72,13 +72,10 @@ export async function runBacktest(deps: JobDeps, job: ClaimedJob, report: Progre
     targetPerDay: settings.targetPerDay,
   };
   const share = (1 - READING_SHARE - FINISHING_SHARE) / versions.length;
-  const replayed: ReplayedVersion[] = [];
-  for (const [i, version] of versions.entries()) {
-    const stage = `replaying version ${version.number}`;
-    const base = READING_SHARE + i * share;
-    await report(base, stage);
-    replayed.push(await replayVersion(version, ctx, (fraction) => report(base + share * fraction, stage)));
-  }
+  await report(READING_SHARE, `replaying version ${versions[0].number}`);
+  const replayed: ReplayedVersion[] = await replayVersions(versions, ctx, (i, fraction) =>
+    report(READING_SHARE + share * (i + fraction), `replaying version ${versions[i].number}`),
+  );
   await report(1 - FINISHING_SHARE, 'comparing the versions');
   const statuses = await versionStatuses(db, loop.id, job.versionIds);
   const figures: VersionBacktest[] = replayed.map(({ figures: f }) => {

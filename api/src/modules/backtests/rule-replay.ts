@@ -202,7 +202,7 @@ function createTally(rules: RuleInForce[]) {
       kind: transition.kind,
       raisedAt: isoOf(transition.slotMs),
       clearedAt: null,
-      statistic: `${name} ${figure(value)}/${figure(limit)}`,
+      statistic: `${name} = ${figure(value)} (limit ${figure(limit)})`,
     };
     alerts.push(alert);
     open.set(transition.ruleId, alert);

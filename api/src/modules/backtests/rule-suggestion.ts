@@ -18,10 +18,12 @@ export interface ResidualSpread {
 export const MIN_SCORED_FOR_SUGGESTION = 100;
 
 /**
- * Band: 4σ, so a normal residual is outside on 6.3·10⁻⁵ of the samples; 3 samples in a row, so a
- * single bad reading (a spike, a frozen transmitter's jump) does not raise while a drift does.
+ * Band: 3 samples in a row, so a single bad reading (a spike, a frozen transmitter's jump) does not
+ * raise while a drift does; the multiple k of sigma is taken from this grid (2 … 6 in steps of
+ * 0.25), the one whose false-alert interval is nearest a week, like the CUSUM's h.
  */
-export const SUGGESTED_BAND = { k: 4, persistence: 3 } as const;
+export const SUGGESTED_BAND_PERSISTENCE = 3;
+export const BAND_K_GRID: readonly number[] = Array.from({ length: 17 }, (_, i) => 2 + i / 4);
 
 /** CUSUM reference value: half the 1σ shift it is tuned to detect (E. S. Page, Biometrika 41, 1954). */
 export const SUGGESTED_CUSUM_K = 0.5;
@@ -32,7 +34,7 @@ export const SUGGESTED_CUSUM_K = 0.5;
  */
 export const CUSUM_H_GRID: readonly number[] = Array.from({ length: 33 }, (_, i) => 4 + i / 2);
 
-/** The false-alert interval the CUSUM suggestion aims at: about one a week. */
+/** The false-alert interval the band and CUSUM suggestions aim at: about one a week. */
 export const TARGET_INTERVAL_S = 7 * 86_400;
 
 const threeFigures = (v: number) => Number(v.toPrecision(3));
@@ -44,21 +46,19 @@ const threeFigures = (v: number) => Number(v.toPrecision(3));
  * (two-sided in-control ARL / outputs) is nearest one week at the loop's sample period on a log
  * scale, so about one false alert a week whatever the period (h = 4 at one sample an hour).
  */
-export function suggestRules(perOutput: ResidualSpread[], samplePeriodS: number): RuleSuggestion {
+export function suggestRules(
+  perOutput: ResidualSpread[],
+  samplePeriodS: number,
+  names: string[] = perOutput.map((_, i) => `output ${i + 1}`),
+): RuleSuggestion {
   if (!(samplePeriodS > 0)) throw new RangeError(`suggestRules: samplePeriodS must be > 0, got ${samplePeriodS}`);
-  const missing = whyNoSigma(perOutput);
+  const missing = whyNoSigma(perOutput, names);
   if (missing) return { sigma: null, band: null, cusum: null, sentence: missing };
   const sigma = perOutput.map((output) => threeFigures(output.std as number));
   const outputs = sigma.length;
-  const { k, persistence } = SUGGESTED_BAND;
-  const bandExpectation = expectationOf(
-    'band',
-    { mode: 'sigma', k, sigma, raiseAfter: persistence, clearAfter: persistence, deadband: 0.2 },
-    samplePeriodS,
-    outputs,
-  );
-  const bandInterval = bandExpectation.falseAlertIntervalSamples;
-  if (bandInterval === null) throw new Error(`suggestRules: no band interval for ${outputs} outputs at k = ${k}`);
+  const persistence = SUGGESTED_BAND_PERSISTENCE;
+  const k = bandMultiple(outputs, samplePeriodS);
+  const bandInterval = bandIntervalOf(k, outputs, samplePeriodS);
   const h = cusumDecisionInterval(outputs, samplePeriodS);
   const cusumInterval = inControlArl(h) / outputs;
   const delay = arlAt(h, 1);
@@ -67,32 +67,58 @@ export function suggestRules(perOutput: ResidualSpread[], samplePeriodS: number)
     band: { k, persistence, limits: sigma.map((s) => threeFigures(k * s)), falseAlertIntervalSamples: bandInterval },
     cusum: { k: SUGGESTED_CUSUM_K, h, falseAlertIntervalSamples: cusumInterval, detectionDelaySamples: delay },
     sentence: [
-      `Band ${k}σ with ${persistence} samples in a row (so that a single bad reading does not raise): about one false alert every ${plainDuration(bandInterval * samplePeriodS)} at this sample period.`,
-      `CUSUM k ${SUGGESTED_CUSUM_K}, h ${h} (${whyH(h, cusumInterval * samplePeriodS)}): about one false alert every ${plainDuration(cusumInterval * samplePeriodS)}; a 1σ shift raises it after about ${plainSamples(delay)} (${plainDuration(delay * samplePeriodS)}).`,
+      `Band ${k}σ with ${persistence} samples in a row (so that a single bad reading does not raise; ${whyChosen(k, BAND_K_GRID, bandInterval * samplePeriodS, 'k')}): about one false alert every ${plainDuration(bandInterval * samplePeriodS)} at this sample period.`,
+      `CUSUM k ${SUGGESTED_CUSUM_K}, h ${h} (${whyChosen(h, CUSUM_H_GRID, cusumInterval * samplePeriodS, 'h')}): about one false alert every ${plainDuration(cusumInterval * samplePeriodS)}; a 1σ shift raises it after about ${plainSamples(delay)} (${plainDuration(delay * samplePeriodS)}).`,
       'Both assume independent, normal residuals with these standard deviations; correlated residuals raise more often.',
     ].join(' '),
   };
 }
 
-function whyNoSigma(perOutput: ResidualSpread[]): string | null {
+function whyNoSigma(perOutput: ResidualSpread[], names: string[]): string | null {
   if (perOutput.length === 0) return 'No outputs: no rule settings to suggest.';
   for (const [i, output] of perOutput.entries()) {
     if (output.scored < MIN_SCORED_FOR_SUGGESTION) {
-      return `Rule settings are suggested from at least ${MIN_SCORED_FOR_SUGGESTION} one-step residuals per output; output ${i + 1} has ${output.scored}.`;
+      return `Rule settings are suggested from at least ${MIN_SCORED_FOR_SUGGESTION} one-step residuals per output; ${names[i]} has ${output.scored}.`;
     }
     if (output.std === null || !(output.std > 0) || !Number.isFinite(output.std)) {
-      return `Output ${i + 1}'s one-step residual has no spread over this recording, so no limit can be set from it.`;
+      return `The one-step residual of ${names[i]} has no spread over this recording (the version predicts it exactly), so no limit can be set from it.`;
     }
   }
   return null;
 }
 
-/** The reason for h: the week's target, unless the grid's end kept it from being met. */
-function whyH(h: number, intervalS: number): string {
-  const grid = CUSUM_H_GRID;
-  if (h === grid[0] && intervalS > 1.5 * TARGET_INTERVAL_S) return `the smallest h suggested`;
-  if (h === grid[grid.length - 1] && intervalS < TARGET_INTERVAL_S / 1.5) return `the largest h suggested`;
+/** The reason for a grid value: the week's target, unless the grid's end kept it from being met. */
+function whyChosen(value: number, grid: readonly number[], intervalS: number, name: string): string {
+  if (value === grid[0] && intervalS > 1.5 * TARGET_INTERVAL_S) return `the smallest ${name} suggested`;
+  if (value === grid[grid.length - 1] && intervalS < TARGET_INTERVAL_S / 1.5) return `the largest ${name} suggested`;
   return 'chosen for about one false alert a week';
+}
+
+/** Expected samples between false band alerts at k·sigma, persistence 3, all outputs (the Rules editor's figure). */
+function bandIntervalOf(k: number, outputs: number, samplePeriodS: number): number {
+  const persistence = SUGGESTED_BAND_PERSISTENCE;
+  const sigma = new Array<number>(outputs).fill(1);
+  const { falseAlertIntervalSamples } = expectationOf(
+    'band',
+    { mode: 'sigma', k, sigma, raiseAfter: persistence, clearAfter: persistence, deadband: 0.2 },
+    samplePeriodS,
+    outputs,
+  );
+  if (falseAlertIntervalSamples === null)
+    throw new Error(`suggestRules: no band interval for ${outputs} outputs at k = ${k}`);
+  return falseAlertIntervalSamples;
+}
+
+/** The band grid's k whose false-alert interval is nearest one week on a log scale. */
+export function bandMultiple(outputs: number, samplePeriodS: number): number {
+  const target = TARGET_INTERVAL_S / samplePeriodS;
+  let best = BAND_K_GRID[0];
+  let distance = Infinity;
+  for (const k of BAND_K_GRID) {
+    const d = Math.abs(Math.log(bandIntervalOf(k, outputs, samplePeriodS) / target));
+    if (d < distance) [best, distance] = [k, d];
+  }
+  return best;
 }
 
 const arls = new Map<string, number>();

@@ -65,6 +65,7 @@ export function replayVersion(
   const suggestion = suggestRules(
     oneStep.map((f) => ({ std: f.residualStd, scored: f.scored })),
     ctx.samplePeriodS,
+    outputs.map((signal) => signal.name),
   );
   return {
     figures: {

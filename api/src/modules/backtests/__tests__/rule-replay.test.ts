@@ -69,7 +69,7 @@ describe('replayRules: band', () => {
     expect(replay.total).toBe(5);
     expect(replay.alerts.map((a) => a.raisedAt)).toEqual(raisedAt.map((i) => iso(K0 + i)));
     expect(replay.alerts.map((a) => a.clearedAt)).toEqual(clearedAt.map((i) => iso(K0 + i)));
-    expect(replay.alerts[0].statistic).toBe('largest |residual| / limit 1.5/1');
+    expect(replay.alerts[0].statistic).toBe('largest |residual| / limit = 1.5 (limit 1)');
     expect(RuleReplaySchema.parse(replay)).toEqual(replay);
   });
 
@@ -124,14 +124,14 @@ describe('replayRules: stale', () => {
         kind: 'stale',
         raisedAt: iso(K0 + 24, T),
         clearedAt: iso(K0 + 25, T),
-        statistic: 'samples without a reading 5/5',
+        statistic: 'samples without a reading = 5 (limit 5)',
       },
       {
         ruleId: STALE_ID,
         kind: 'stale',
         raisedAt: iso(K0 + 34, T),
         clearedAt: iso(K0 + 42, T),
-        statistic: 'samples without a reading 12/5',
+        statistic: 'samples without a reading = 12 (limit 5)',
       },
     ]);
   });
@@ -167,7 +167,7 @@ describe('replayRules: cusum', () => {
     expect(replay.total).toBe(1);
     expect(replay.alerts[0].raisedAt).toBe(iso(K0 + 4));
     expect(replay.alerts[0].clearedAt).toBe(iso(K0 + 20 + (CUSUM_HOLD * h) / 0.5 - 1));
-    expect(replay.alerts[0].statistic).toBe('largest CUSUM sum (σ) 5/4');
+    expect(replay.alerts[0].statistic).toBe('largest CUSUM sum (σ) = 5 (limit 4)');
   });
 });
 

@@ -5,9 +5,10 @@ import { plainDuration } from '../../drift-rules/plain-duration.js';
 import { expectationOf } from '../../drift-rules/rule-expectation.js';
 import {
   CUSUM_H_GRID,
+  BAND_K_GRID,
   MIN_SCORED_FOR_SUGGESTION,
-  SUGGESTED_BAND,
   TARGET_INTERVAL_S,
+  bandMultiple,
   suggestRules,
 } from '../rule-suggestion.js';
 
@@ -29,7 +30,9 @@ describe('suggestRules: sigma', () => {
       sentence: `Rule settings are suggested from at least 100 one-step residuals per output; output 2 has 99.`,
     });
     expect(suggestRules([{ std: null, scored: 500 }], 1).sigma).toBeNull();
-    expect(suggestRules([{ std: 0, scored: 500 }], 1).sentence).toContain('no spread');
+    expect(suggestRules([{ std: 0, scored: 500 }], 1, ['Level']).sentence).toBe(
+      'The one-step residual of Level has no spread over this recording (the version predicts it exactly), so no limit can be set from it.',
+    );
   });
 
   it('is the residual standard deviation per output, to three figures, and the band limits k·sigma', () => {
@@ -41,33 +44,56 @@ describe('suggestRules: sigma', () => {
       1,
     );
     expect(s.sigma).toEqual([0.123, 2.5]);
-    expect(s.band?.limits).toEqual([0.492, 10]);
+    const k = s.band!.k;
+    expect(s.band?.limits).toEqual([Number((k * 0.123).toPrecision(3)), Number((k * 2.5).toPrecision(3))]);
     expect(RuleSuggestionSchema.parse(s)).toEqual(s);
   });
 });
 
 describe('suggestRules: band', () => {
-  it('4σ, 3 in a row: Feller’s run length at the per-sample exceedance of normal residuals on all outputs', () => {
+  it('3 in a row at k·σ: Feller’s run length at the per-sample exceedance of normal residuals on all outputs', () => {
     for (const outputs of [1, 3]) {
       const s = suggestRules(
         Array.from({ length: outputs }, () => ({ std: 0.5, scored: 1000 })),
         10,
       );
-      // p = 1 − (1 − 2Φ(−4))^outputs; ARL = (1 − p³) / ((1 − p) p³) (Feller, vol. 1, 3rd ed., §XIII.7)
-      const p = 1 - (1 - 2 * normalCdf(-SUGGESTED_BAND.k)) ** outputs;
-      expect(s.band?.k).toBe(4);
+      const k = s.band!.k;
+      // p = 1 − (1 − 2Φ(−k))^outputs; ARL = (1 − p³) / ((1 − p) p³) (Feller, vol. 1, 3rd ed., §XIII.7)
+      const p = 1 - (1 - 2 * normalCdf(-k)) ** outputs;
       expect(s.band?.persistence).toBe(3);
       expect(s.band!.falseAlertIntervalSamples / persistenceArl(p, 3)).toBeCloseTo(1, 9);
       expect(s.band!.falseAlertIntervalSamples / ((1 - p ** 3) / ((1 - p) * p ** 3))).toBeCloseTo(1, 9);
       // the Rules editor shows the same figure for the same rule
       const editor = expectationOf(
         'band',
-        { mode: 'sigma', k: 4, sigma: s.sigma!, raiseAfter: 3, clearAfter: 1, deadband: 0 },
+        { mode: 'sigma', k, sigma: s.sigma!, raiseAfter: 3, clearAfter: 1, deadband: 0 },
         10,
         outputs,
       );
       expect(s.band?.falseAlertIntervalSamples).toBe(editor.falseAlertIntervalSamples);
     }
+  });
+
+  it('takes the k of the grid whose false-alert interval is nearest a week, no nearer on either side', () => {
+    const week = (k: number, outputs: number, period: number) => {
+      const p = 1 - (1 - 2 * normalCdf(-k)) ** outputs;
+      return Math.abs(Math.log((persistenceArl(p, 3) * period) / TARGET_INTERVAL_S));
+    };
+    for (const [outputs, period] of [
+      [1, 1],
+      [2, 1],
+      [1, 60],
+      [4, 0.5],
+    ]) {
+      const k = bandMultiple(outputs, period);
+      const i = BAND_K_GRID.indexOf(k);
+      if (i > 0) expect(week(k, outputs, period)).toBeLessThanOrEqual(week(BAND_K_GRID[i - 1], outputs, period));
+      if (i < BAND_K_GRID.length - 1)
+        expect(week(k, outputs, period)).toBeLessThanOrEqual(week(BAND_K_GRID[i + 1], outputs, period));
+    }
+    // at 1 s and one output a week is 604,800 samples: (1 − p³)/((1 − p)p³) ≈ 1/p³ gives p ≈ 0.0118,
+    // and 2Φ(−k) = 0.0118 at k ≈ 2.52, so 2.5 is the grid's nearest
+    expect(bandMultiple(1, 1)).toBe(2.5);
   });
 });
 
@@ -125,7 +151,7 @@ describe('suggestRules: cusum', () => {
     const s = suggestRules([{ std: 0.3, scored: 10_000 }], 60);
     expect(s.sentence).toMatch(
       new RegExp(
-        `^Band 4σ with 3 samples in a row \\(so that a single bad reading does not raise\\): about one false alert every ${plainDuration(s.band!.falseAlertIntervalSamples * 60)} at this sample period\\. CUSUM k 0\\.5, h ${s.cusum!.h} `,
+        `^Band ${s.band!.k}σ with 3 samples in a row \\(so that a single bad reading does not raise; chosen for about one false alert a week\\): about one false alert every ${plainDuration(s.band!.falseAlertIntervalSamples * 60)} at this sample period\\. CUSUM k 0\\.5, h ${s.cusum!.h} `,
       ),
     );
     expect(s.sentence).toContain('a 1σ shift raises it after about');

@@ -523,6 +523,18 @@ describe('the api process', () => {
       '/api/v1/openapi.json',
     );
     expect(Object.keys(openApi.body.paths['/api/v1/loops/{loopId}/backtests'])).toEqual(['post', 'get']);
+    // both ways in are documented: the JSON range and the multipart upload with its fields and file
+    const create = openApi.body.paths['/api/v1/loops/{loopId}/backtests'].post as {
+      requestBody: {
+        content: Record<string, { schema: { properties: Record<string, unknown>; required?: string[] } }>;
+      };
+    };
+    expect(Object.keys(create.requestBody.content)).toEqual(['application/json', 'multipart/form-data']);
+    expect(create.requestBody.content['application/json'].schema.properties).toHaveProperty('from');
+    const form = create.requestBody.content['multipart/form-data'].schema;
+    expect(Object.keys(form.properties)).toEqual(['versionIds', 'mapping', 'file']);
+    expect(form.properties.file).toMatchObject({ type: 'string', format: 'binary' });
+    expect(form.required).toEqual(['versionIds', 'mapping', 'file']);
     for (const path of [
       '/api/v1/backtests/{id}',
       '/api/v1/backtests/{id}/cancel',

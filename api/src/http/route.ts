@@ -17,6 +17,11 @@ export interface RouteSpec<B extends z.ZodType | undefined, Q extends z.ZodType 
   summary: string;
   tag: string;
   body?: B;
+  /**
+   * For documentation: the route also takes multipart/form-data with these text fields, sent
+   * before the file part named `file` (the handler reads the stream itself).
+   */
+  multipart?: { fields: z.ZodType; file: string };
   query?: Q;
   response?: z.ZodType;
   status?: number;

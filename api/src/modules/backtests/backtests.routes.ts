@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import {
+  BacktestUploadFieldsSchema,
   BACKTEST_LIMITS,
   BacktestCreatedSchema,
   BacktestRangeBodySchema,
@@ -40,6 +41,7 @@ export function registerBacktestRoutes(routes: RouteTable, deps: { db: Db; confi
         `and kept apart from the live readings (the tally and the first bad rows with their line come back). At most ${BACKTEST_LIMITS.maxSamples.toLocaleString('en-GB')} ` +
         `slots and at least ${MIN_READINGS} readings (422 otherwise); versions of another loop: 422`,
       body: BacktestRangeBodySchema.optional(),
+      multipart: { fields: BacktestUploadFieldsSchema, file: 'file' },
       response: BacktestCreatedSchema,
     },
     async ({ req, res, user, body }) => {

@@ -1,4 +1,10 @@
-import { ImportPreviewSchema, ImportProgressSchema, INGEST_LIMITS } from '../../contracts/ingest.js';
+import { z } from 'zod';
+import {
+  ImportFieldsSchema,
+  ImportPreviewSchema,
+  ImportProgressSchema,
+  INGEST_LIMITS,
+} from '../../contracts/ingest.js';
 import { notFound } from '../../http/errors.js';
 import { isUuid } from '../../http/params.js';
 import type { RouteTable } from '../../http/route.js';
@@ -16,6 +22,7 @@ export function registerImportRoutes(routes: RouteTable, deps: ImportDeps): void
       access: ['engineer'],
       tag: 'readings',
       summary: `multipart/form-data with a CSV "file": its header, the first ${INGEST_LIMITS.previewRows} rows and a suggested column mapping; nothing is stored`,
+      multipart: { fields: z.object({}), file: 'file' },
       response: ImportPreviewSchema,
     },
     async ({ req, res }) => {
@@ -34,6 +41,7 @@ export function registerImportRoutes(routes: RouteTable, deps: ImportDeps): void
         'Import historical readings from a CSV (multipart/form-data: fields "mapping" = JSON {"t": column, "u": [columns], "y": [columns]} by header name or zero-based position, ' +
         'optional "importId" = a UUID to follow progress at GET /api/v1/imports/{id}, then the "file"). Slots and duplicates as for POST …/readings; ' +
         `answers accepted, duplicates, rejected and the first ${INGEST_LIMITS.reportedBadRows} bad rows with their line (the header is line 1)`,
+      multipart: { fields: ImportFieldsSchema, file: 'file' },
       response: ImportProgressSchema,
     },
     ({ req, res, user }) => importCsv(deps, user, String(req.params.loopId), req, res),

@@ -7,6 +7,7 @@ const ADMIN_PAGES = [
   { to: '/admin/access-tokens', label: 'Access tokens' },
   { to: '/admin/dev-mail', label: 'Development mailbox' },
   { to: '/admin/audit', label: 'Audit log' },
+  { to: '/admin/api', label: 'API' },
 ] as const;
 
 export function AdminLayout() {

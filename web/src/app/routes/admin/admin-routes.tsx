@@ -2,6 +2,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { Navigate, type RouteObject } from 'react-router';
 import { PageLoading } from '../../../components/ui/page-loading';
 import { accessTokensQueryOptions } from '../../../features/access-tokens/api/get-access-tokens';
+import { openApiQueryOptions } from '../../../features/api-reference/api/get-openapi';
 import { auditLogQueryOptions, parseAuditSearch } from '../../../features/audit/api/get-audit-log';
 import { devMailQueryOptions } from '../../../features/dev-mail/api/get-dev-mail';
 import { ingestSourcesQueryOptions } from '../../../features/ingest-sources/api/get-ingest-sources';
@@ -13,6 +14,8 @@ import { AdminAuditPage } from './audit';
 import { AdminDevMailPage } from './dev-mail';
 import { AdminIngestSourcesPage } from './ingest-sources';
 import { AdminUsersPage } from './users';
+
+const apiReferencePage = async () => ({ Component: (await import('./api-reference')).AdminApiReferencePage });
 
 export function adminRoutes(queryClient: QueryClient): RouteObject[] {
   const adminOnly = 'admin' as const;
@@ -54,6 +57,12 @@ export function adminRoutes(queryClient: QueryClient): RouteObject[] {
           ),
           HydrateFallback: PageLoading,
           element: <AdminAuditPage />,
+        },
+        {
+          path: 'api',
+          loader: warmCacheLoader(queryClient, () => openApiQueryOptions(), adminOnly),
+          HydrateFallback: PageLoading,
+          lazy: apiReferencePage,
         },
       ],
     },

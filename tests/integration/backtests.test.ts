@@ -504,6 +504,13 @@ describe('evidence for a review', () => {
     expect(submitted.body.status).toBe('in_review');
     const seen = await reviewer.request<Evidence[]>('GET', evidenceOf(candidate.id));
     expect(seen.body.map((e) => [e.backtestId, e.verdict])).toEqual([[rangeId, expect.stringMatching(/Version 2/)]]);
+    // the reviewer weighs the evidence and may neither add to it nor take from it (four eyes)
+    const added = await post<ErrorResponse>(reviewer, evidenceOf(candidate.id), { backtestId: uploadId });
+    expect(added.status).toBe(403);
+    expect(added.body.error.message).toContain('Only the author of version 2');
+    const taken = await reviewer.request('DELETE', `${evidenceOf(candidate.id)}/${rangeId}`, undefined, { csrf: true });
+    expect(taken.status).toBe(403);
+    expect((await reviewer.request<Evidence[]>('GET', evidenceOf(candidate.id))).body).toHaveLength(1);
     const audit = await db('audit_log').where({ action: 'model_version.submitted', target_id: candidate.id }).first();
     expect(audit?.details).toMatchObject({ backtestIds: [rangeId] });
   });

@@ -226,7 +226,10 @@ export const BacktestSchema = z.object({
   from: Iso.nullable(),
   to: Iso.nullable(),
   upload: BacktestUploadTallySchema.nullable(),
-  versions: z.array(z.object({ id: z.uuid(), number: z.number().int(), status: z.string() })),
+  /** Who wrote each version: only its author may attach evidence to it. */
+  versions: z.array(
+    z.object({ id: z.uuid(), number: z.number().int(), status: z.string(), authorId: z.uuid().nullable() }),
+  ),
   createdBy: Person,
   createdAt: Iso,
   startedAt: Iso.nullable(),

@@ -4,6 +4,9 @@ export type FakeReply = { status?: number; body?: unknown };
 export type FakeHandler = (request: { url: string; init: RequestInit }) => FakeReply;
 export type FakeRoutes = Record<string, FakeReply | FakeHandler>;
 
+/** The id /api/v1/me answers for the signed-in test user (an author in fixtures that need one). */
+export const SIGNED_IN_USER_ID = '11111111-1111-4111-8111-0000000000e1';
+
 export function jsonResponse({ status = 200, body }: FakeReply): Response {
   if (status === 204 || body === undefined) return new Response(null, { status });
   return new Response(JSON.stringify(body), {
@@ -48,7 +51,7 @@ export const NOBODY_ON_CALL = { at: '2025-03-01T08:00:00Z', primary: null, secon
 /** The signed-in user and what the frame asks for on every page (nobody on call, no alerts waiting). */
 export function signedInAs(roles: string[], name = 'Test Person') {
   return {
-    'GET /api/v1/me': { body: { id: 'u1', email: 'person@quillmere.example', name, roles } },
+    'GET /api/v1/me': { body: { id: SIGNED_IN_USER_ID, email: 'person@quillmere.example', name, roles } },
     'GET /api/health': { body: HEALTHY },
     'GET /api/v1/csrf-token': { body: { token: 'csrf-1' } },
     'GET /api/v1/oncall/now': { body: NOBODY_ON_CALL },

@@ -57,7 +57,7 @@ function selectBacktests(db: Db) {
       'b.finished_at',
       'b.cancel_requested',
       'b.error',
-      db.raw(`(SELECT coalesce(json_agg(json_build_object('id', v.id, 'number', v.number, 'status', v.status)
+      db.raw(`(SELECT coalesce(json_agg(json_build_object('id', v.id, 'number', v.number, 'status', v.status, 'authorId', v.author_id)
         ORDER BY o.i), '[]') FROM unnest(b.version_ids) WITH ORDINALITY AS o(id, i)
         JOIN model_versions v ON v.id = o.id) AS versions`),
       db.raw(`(SELECT coalesce(json_agg(json_build_object('versionId', e.version_id, 'versionNumber', v.number)

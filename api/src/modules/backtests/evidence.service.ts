@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import type { SignedInUser } from '../../auth/user.js';
 import type { Evidence } from '../../contracts/backtests.js';
 import type { Db } from '../../db/knex.js';
-import { AppError, conflict, notFound } from '../../http/errors.js';
+import { AppError, conflict, forbidden, notFound } from '../../http/errors.js';
 import { isUuid } from '../../http/params.js';
 import { recordAudit } from '../audit/audit.repository.js';
 import { lockLoop } from '../loops/loops.repository.js';
@@ -22,6 +22,17 @@ function requireOpenForEvidence(version: VersionRecord, action: string): void {
   if (version.status === 'draft' || version.status === 'in_review') return;
   throw conflict(
     `${describe(version)} is ${version.status.replace('_', ' ')}; evidence can only be ${action} while a version is a draft or in review.`,
+  );
+}
+
+/**
+ * 403 unless the actor wrote the version: the evidence is the author's case for it, and the
+ * reviewer who weighs it must not be able to add to it or take from it (four eyes).
+ */
+function requireAuthor(version: VersionRecord, actor: SignedInUser, action: string): void {
+  if (version.authorId === actor.id) return;
+  throw forbidden(
+    `Only the author of ${describe(version).toLowerCase()} can ${action} its evidence; ask them, or start a backtest of your own and share its link.`,
   );
 }
 
@@ -88,6 +99,7 @@ export async function attachEvidence(
 ): Promise<{ evidence: Evidence; created: boolean }> {
   const created = await withLockedVersion(db, versionId, async (trx, version) => {
     requireOpenForEvidence(version, 'attached');
+    requireAuthor(version, actor, 'attach');
     const inserted = await attachWithin(trx, version, body.backtestId, body.note || null, actor.id);
     if (inserted)
       await recordAudit(trx, {
@@ -116,6 +128,7 @@ export async function detachEvidence(
 ): Promise<void> {
   await withLockedVersion(db, versionId, async (trx, version) => {
     requireOpenForEvidence(version, 'removed');
+    requireAuthor(version, actor, 'remove');
     if (!isUuid(backtestId) || !(await deleteEvidence(trx, version.id, backtestId)))
       throw notFound(`Backtest ${backtestId} attached to ${describe(version).toLowerCase()}`);
     await recordAudit(trx, {

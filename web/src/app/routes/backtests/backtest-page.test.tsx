@@ -170,6 +170,15 @@ describe('the page of a backtest', () => {
     expect(detached).toEqual([BACKTEST_ID]);
   });
 
+  it('offers no attach to an engineer who did not write the draft (the evidence is its author’s)', async () => {
+    const theirs = fakeBacktest();
+    theirs.versions = theirs.versions.map((v) => ({ ...v, authorId: '22222222-2222-4222-8222-0000000000f2' }));
+    stubFetch(routes(['engineer'], theirs));
+    renderApp(`/backtests/${BACKTEST_ID}`);
+    await screen.findByRole('region', { name: 'Verdict' });
+    expect(screen.queryByRole('button', { name: /Attach as evidence/ })).toBeNull();
+  });
+
   it('says in plain words why a backtest failed and what to do', async () => {
     const failed = fakeBacktest({
       status: 'failed',

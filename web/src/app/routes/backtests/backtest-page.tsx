@@ -62,7 +62,12 @@ export function BacktestPage() {
       <BacktestOutcome backtest={b} loopTag={b.loopTag} />
       {b.upload ? <UploadTally tally={b.upload} /> : null}
       {b.status === 'succeeded' && b.results ? (
-        <BacktestResultsView backtest={b} results={b.results} timeZone={timeZone} mayAttach={isEngineer} />
+        <BacktestResultsView
+          backtest={b}
+          results={b.results}
+          timeZone={timeZone}
+          mayAttachAs={isEngineer ? (user?.id ?? null) : null}
+        />
       ) : null}
     </div>
   );

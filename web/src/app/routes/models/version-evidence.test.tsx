@@ -67,8 +67,8 @@ describe('evidence on the review page', () => {
   it('lets the author tick finished backtests of the draft to attach when submitting', async () => {
     const version = fakeVersion();
     const versions = [
-      { id: version.id, number: 1, status: 'draft' },
-      { id: '44444444-4444-4444-8444-000000000009', number: 0, status: 'active' },
+      { id: version.id, number: 1, status: 'draft', authorId: null },
+      { id: '44444444-4444-4444-8444-000000000009', number: 0, status: 'active', authorId: null },
     ];
     const done = summaryOf(fakeBacktest({ loopId: LOOP.id, versions }));
     const other = {

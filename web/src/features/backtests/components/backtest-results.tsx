@@ -18,12 +18,14 @@ function inReadingOrder(results: Results): VersionBacktest[] {
   return [...results.versions].sort((a, b) => rank(a) - rank(b) || b.versionNumber - a.versionNumber);
 }
 
-type BacktestResultsProps = { backtest: Backtest; results: Results; timeZone: string; mayAttach: boolean };
+/** mayAttachAs: the signed-in engineer's id (attaching is for the version's author), or null for read-only users. */
+type BacktestResultsProps = { backtest: Backtest; results: Results; timeZone: string; mayAttachAs: string | null };
 
-export function BacktestResultsView({ backtest, results, timeZone, mayAttach }: BacktestResultsProps) {
+export function BacktestResultsView({ backtest, results, timeZone, mayAttachAs }: BacktestResultsProps) {
   const versions = useMemo(() => inReadingOrder(results), [results]);
   const chartVersions = useMemo(() => versions.map((v) => ({ id: v.versionId, number: v.versionNumber })), [versions]);
   const statusNow = (versionId: string) => backtest.versions.find((v) => v.id === versionId)?.status ?? '';
+  const authorOf = (versionId: string) => backtest.versions.find((v) => v.id === versionId)?.authorId ?? null;
   const { slots, measured, missing } = results.samples;
   return (
     <div className="space-y-5">
@@ -44,7 +46,10 @@ export function BacktestResultsView({ backtest, results, timeZone, mayAttach }: 
       <h2 className="border-b border-rule pb-1 text-lg font-bold">Each version</h2>
       {versions.map((result) => {
         const now = statusNow(result.versionId);
-        const attachable = mayAttach && (now === 'draft' || now === 'in_review');
+        const attachable =
+          mayAttachAs !== null &&
+          authorOf(result.versionId) === mayAttachAs &&
+          (now === 'draft' || now === 'in_review');
         return (
           <VersionResultCard key={result.versionId} result={result} statusNow={now} timeZone={timeZone}>
             {attachable ? (

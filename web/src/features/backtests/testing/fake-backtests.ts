@@ -1,5 +1,6 @@
 import type { Backtest, BacktestSummary, Evidence, VersionBacktest } from '@shadowloop/api/contracts';
 import { fakeLoop } from '../../../test/registry-fixtures';
+import { SIGNED_IN_USER_ID } from '../../../test/fake-api';
 
 export const LOOP_ID = '33333333-3333-4333-8333-333333333333';
 export const ACTIVE_ID = '44444444-4444-4444-8444-000000000003';
@@ -167,8 +168,9 @@ export function fakeBacktest(overrides: Partial<Backtest> = {}): Backtest {
     to: TO,
     upload: null,
     versions: [
-      { id: CANDIDATE_ID, number: 4, status: 'draft' },
-      { id: ACTIVE_ID, number: 3, status: 'active' },
+      // the signed-in test user wrote the candidate, someone else the active version
+      { id: CANDIDATE_ID, number: 4, status: 'draft', authorId: SIGNED_IN_USER_ID },
+      { id: ACTIVE_ID, number: 3, status: 'active', authorId: person.id },
     ],
     createdBy: person,
     createdAt: '2025-06-02T08:00:00Z',

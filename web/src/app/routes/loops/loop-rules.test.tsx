@@ -1,5 +1,6 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
+import { ACTIVE, fakeBacktest, summaryOf } from '../../../features/backtests/testing/fake-backtests';
 import { bodyOf, errorBody, signedInAs, stubFetch, type FakeRoutes } from '../../../test/fake-api';
 import { fakeLoop } from '../../../test/registry-fixtures';
 import { renderApp } from '../../../test/render-app';
@@ -37,6 +38,7 @@ function routes(roles: string[], extra: FakeRoutes = {}): FakeRoutes {
     ...signedInAs(roles),
     [`GET /api/v1/loops/${loop.id}`]: { body: loop },
     [`GET ${base}`]: { body: [band] },
+    [`GET /api/v1/loops/${loop.id}/backtests`]: { body: [] },
     ...extra,
   };
 }
@@ -166,6 +168,46 @@ describe('the Rules tab', () => {
       params: { k: 0.5, h: 5, sigma: [0.1], shift: 1 },
       note: '',
     });
+  });
+
+  it('saves the sigma an engineer filled from a backtest of the active version', async () => {
+    const saves: unknown[] = [];
+    const backtest = fakeBacktest({
+      loopId: loop.id,
+      versions: [{ id: loop.activeVersionId!, number: 1, status: 'active', authorId: null }],
+      results: {
+        ...fakeBacktest().results!,
+        versions: [{ ...ACTIVE, versionId: loop.activeVersionId!, versionNumber: 1 }],
+        comparison: null,
+      },
+    });
+    stubFetch(
+      routes(['engineer'], {
+        [`POST ${base}/preview`]: { body: expectation('About one false alert every 9 days at this sample period.') },
+        [`GET /api/v1/loops/${loop.id}/backtests`]: { body: [summaryOf(backtest)] },
+        [`GET /api/v1/backtests/${backtest.id}`]: { body: backtest },
+        [`PUT ${base}/band`]: ({ init }) => {
+          saves.push(bodyOf(init));
+          return { body: { ...band, version: 4 } };
+        },
+      }),
+    );
+    renderApp(`/loops/${loop.id}/rules`);
+    const card = await screen.findByRole('region', { name: 'Band with persistence' });
+    fireEvent.change(await within(card).findByLabelText('Fill sigma from a backtest'), {
+      target: { value: backtest.id },
+    });
+    expect(await within(card).findByText(/one-step residuals of version 1\)\.$/)).toBeTruthy();
+    fireEvent.click(within(card).getByRole('button', { name: 'Save as a new version' }));
+    expect(await within(card).findByText('Saved as version 4.')).toBeTruthy();
+    expect(saves).toEqual([
+      {
+        enabled: true,
+        priority: 2,
+        params: { ...band.params, sigma: ACTIVE.suggestion.sigma },
+        note: '',
+      },
+    ]);
   });
 
   it('shows operators the rules read-only, with their expectation in plain time', async () => {

@@ -38,23 +38,28 @@ export function step(model: StateSpaceModel, x: number[], u: number[]): StepResu
  * Prepares the per-sample update of {@link step} for the simulator's hot path: `[A B]` and `[C D]`
  * are copied once into row-major Float64Arrays (rows zero-padded to a multiple of 4), the deviations
  * `[x − x0; u − u0]` go to one scratch array, and each call does about `(n + p)(n + m)`
- * multiply-adds with no allocation, in four partial sums per row so that the additions do not wait
- * on each other. Lengths are checked on every call.
+ * multiply-adds with no allocation, in 4 or 8 partial sums per row so that the additions do not
+ * wait on each other. Lengths are checked on every call.
+ *
+ * The loops are compiled once per model shape (see {@link kernelFactory}): steppers of one shape
+ * share their code, and steppers of other shapes (a plant has loops of many sizes) never share
+ * type feedback with them, so each shape runs at the speed of a loop written for it alone.
  *
  * @param model - the model and its operating point (copied; later changes to it are not seen)
  * @returns a {@link Stepper}
  */
 export function createStepper(model: StateSpaceModel): Stepper {
   const { states: n, inputs: m, outputs: p } = modelShape('createStepper', model);
-  // rows padded with zeros to a multiple of 4: one loop shape for every model size, no tail loop
-  const width = 4 * Math.ceil((n + m) / 4);
+  // rows padded with zeros to a multiple of the partial sums: no tail loop
+  const lanes = n + m >= 16 ? 8 : 4;
+  const width = lanes * Math.ceil((n + m) / lanes);
   const AB = joinRows(model.A, model.B, width);
   // with neither C nor D the output is the state itself: no product needed
   const CD = model.C || model.D ? joinRows(model.C ?? identityRows(n), model.D ?? zeroRows(p, m), width) : null;
   const x0 = Float64Array.from(model.x0 ?? new Array<number>(n).fill(0));
   const u0 = Float64Array.from(model.u0 ?? new Array<number>(m).fill(0));
   const y0 = Float64Array.from(model.y0 ?? operatingOutput(model, p));
-  const deviation = new Float64Array(width);
+  const kernel = kernelFactory(n, m, p, width, lanes, CD !== null)(AB, CD, x0, u0, y0, new Float64Array(width));
   return (x, u, xNext, y) => {
     if (x.length !== n || u.length !== m || xNext.length !== n || y.length !== p) {
       assertVector('stepper', 'x', x, n);
@@ -62,27 +67,71 @@ export function createStepper(model: StateSpaceModel): Stepper {
       assertVector('stepper', 'xNext', xNext, n);
       assertVector('stepper', 'y', y, p);
     }
-    for (let i = 0; i < n; i++) deviation[i] = x[i] - x0[i];
-    for (let j = 0; j < m; j++) deviation[n + j] = u[j] - u0[j];
-    if (CD) for (let i = 0; i < p; i++) y[i] = y0[i] + dotRow(CD, i * width, deviation, width);
-    else for (let i = 0; i < p; i++) y[i] = y0[i] + deviation[i];
-    for (let i = 0; i < n; i++) xNext[i] = x0[i] + dotRow(AB, i * width, deviation, width);
+    kernel(x, u, xNext, y);
   };
 }
 
-/** Σ_j M[start + j] z[j] for a length that is a multiple of 4, with four independent partial sums. */
-function dotRow(M: Float64Array, start: number, z: Float64Array, length: number): number {
-  let s0 = 0;
-  let s1 = 0;
-  let s2 = 0;
-  let s3 = 0;
-  for (let j = 0; j < length; j += 4) {
-    s0 += M[start + j] * z[j];
-    s1 += M[start + j + 1] * z[j + 1];
-    s2 += M[start + j + 2] * z[j + 2];
-    s3 += M[start + j + 3] * z[j + 3];
+type KernelFactory = (
+  AB: Float64Array,
+  CD: Float64Array | null,
+  x0: Float64Array,
+  u0: Float64Array,
+  y0: Float64Array,
+  deviation: Float64Array,
+) => Stepper;
+
+const factories = new Map<string, KernelFactory>();
+
+/**
+ * Row i's product Σ_j M[i·width + j] deviation[j] as source text, in `lanes` independent partial
+ * sums (4, or 8 for wider rows, where the longer chains pay) so that the additions do not wait on
+ * each other; the sum ends in `s`.
+ */
+function dotSource(M: string, width: number, lanes: number): string {
+  const sums = Array.from({ length: lanes }, (_, l) => `s${l}`);
+  const terms = sums.map((sum, l) => `${sum} += ${M}[o + j + ${l}] * deviation[j + ${l}];`).join(' ');
+  const total = lanes === 8 ? '(s0 + s4 + (s1 + s5)) + (s2 + s6 + (s3 + s7))' : 's0 + s1 + (s2 + s3)';
+  return `
+      const o = i * ${width};
+      let ${sums.map((sum) => `${sum} = 0`).join(', ')};
+      for (let j = 0; j < ${width}; j += ${lanes}) { ${terms} }
+      const s = ${total};`;
+}
+
+/**
+ * The kernel of one model shape (n states, m inputs, p outputs, padded row width, with or without
+ * an output product), compiled once from source in which the sizes are constants. Only these
+ * integers go into the source; the matrices stay data.
+ */
+function kernelFactory(
+  n: number,
+  m: number,
+  p: number,
+  width: number,
+  lanes: number,
+  withOutput: boolean,
+): KernelFactory {
+  const key = `${n}:${m}:${p}:${width}:${lanes}:${withOutput}`;
+  let factory = factories.get(key);
+  if (!factory) {
+    const output = withOutput
+      ? `for (let i = 0; i < ${p}; i++) {${dotSource('CD', width, lanes)}
+      y[i] = y0[i] + s;
+    }`
+      : `for (let i = 0; i < ${p}; i++) y[i] = y0[i] + deviation[i];`;
+    const source = `'use strict';
+  return function stepper_${n}_${m}_${p}(x, u, xNext, y) {
+    for (let i = 0; i < ${n}; i++) deviation[i] = x[i] - x0[i];
+    for (let j = 0; j < ${m}; j++) deviation[${n} + j] = u[j] - u0[j];
+    ${output}
+    for (let i = 0; i < ${n}; i++) {${dotSource('AB', width, lanes)}
+      xNext[i] = x0[i] + s;
+    }
+  };`;
+    factory = new Function('AB', 'CD', 'x0', 'u0', 'y0', 'deviation', source) as KernelFactory;
+    factories.set(key, factory);
   }
-  return s0 + s1 + (s2 + s3);
+  return factory;
 }
 
 /** Row-major `[L R 0]` with rows `width` long (L and R have the same number of rows). */

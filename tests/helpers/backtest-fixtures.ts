@@ -2,23 +2,13 @@ import { step, type StateSpaceModel } from '@shadowloop/simulator/engine';
 import type { Knex } from 'knex';
 import type { Backtest } from '../../api/src/contracts/backtests.js';
 import type { ApiResponse, SessionClient } from './session-client.js';
+import { seededUniform } from '../../simulator/src/demo-plant/random.js';
 
 /** One recorded slot: its number and the inputs and outputs read there. */
 export interface RecordedSlot {
   k: number;
   u: number[];
   y: number[];
-}
-
-/** Seeded uniform generator on [0, 1) (mulberry32), so every run records the same data. */
-function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 /**
@@ -32,7 +22,7 @@ export function recordModel(
   model: StateSpaceModel,
   options: { firstK: number; slots: number; hold: number; spread: number; missing?: Set<number>; seed?: number },
 ): RecordedSlot[] {
-  const random = seededRandom(options.seed ?? 7);
+  const random = seededUniform(options.seed ?? 7);
   const u0 = model.u0 ?? model.B[0].map(() => 0);
   let x = (model.x0 ?? model.A.map(() => 0)).slice();
   let u = u0.slice();

@@ -44,6 +44,7 @@ export { normalCdf, normalPdf, normalQuantile } from './normal.js';
 export { chiSquareCdf, chiSquareQuantile } from './chi-square.js';
 export { cusumArl, persistenceArl, type CusumArlQuery } from './run-length.js';
 export { fitPercent, residualAutocorrelation, type ResidualAutocorrelation } from './fit.js';
+export { modelAtOperatingPoint } from './model-shape.js';
 export { validateModel, MAX_PROBLEMS, MAX_SIGNALS, MAX_STATES, type ModelProblem } from './validate.js';
 export {
   analyzeModel,

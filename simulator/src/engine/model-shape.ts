@@ -1,5 +1,5 @@
 import { assertColumns, assertRows, assertSquare, assertVector } from './shape.js';
-import type { StateSpaceModel } from './types.js';
+import type { Matrix, StateSpaceModel } from './types.js';
 
 /** Orders of a model: states n, inputs m, outputs p. */
 export interface ModelShape {
@@ -21,4 +21,24 @@ export function modelShape(where: string, model: StateSpaceModel): ModelShape {
   if (model.u0) assertVector(where, 'u0', model.u0, inputs);
   if (model.y0) assertVector(where, 'y0', model.y0, outputs);
   return { states, inputs, outputs };
+}
+
+/**
+ * A model as stored (matrices A, B and optional C, D, as the registry keeps them) at its loop's
+ * operating point (x0, u0, y0; each optional): the StateSpaceModel the engine and the twin take.
+ */
+export function modelAtOperatingPoint(
+  matrices: { a: Matrix; b: Matrix; c?: Matrix | null; d?: Matrix | null },
+  operatingPoint: { x0?: number[]; u0?: number[]; y0?: number[] },
+): StateSpaceModel {
+  const { x0, u0, y0 } = operatingPoint;
+  return {
+    A: matrices.a,
+    B: matrices.b,
+    ...(matrices.c ? { C: matrices.c } : {}),
+    ...(matrices.d ? { D: matrices.d } : {}),
+    ...(x0 ? { x0 } : {}),
+    ...(u0 ? { u0 } : {}),
+    ...(y0 ? { y0 } : {}),
+  };
 }

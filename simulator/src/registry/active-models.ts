@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { validateModel, type Matrix } from '../engine/index.js';
+import { modelAtOperatingPoint, validateModel, type Matrix } from '../engine/index.js';
 import type { ActiveModel } from './hot-swap.js';
 
 type Raw = {
@@ -36,21 +36,12 @@ function selectActive(db: Knex) {
 }
 
 function toActiveModel(r: Raw): ActiveModel {
-  const { x0, u0, y0 } = r.operating_point;
   return {
     loopId: r.loop_id,
     loopTag: r.tag,
     samplePeriodS: r.sample_period_s,
     version: { id: r.version_id, number: r.number },
-    model: {
-      A: r.a,
-      B: r.b,
-      ...(r.c ? { C: r.c } : {}),
-      ...(r.d ? { D: r.d } : {}),
-      ...(x0 ? { x0 } : {}),
-      ...(u0 ? { u0 } : {}),
-      ...(y0 ? { y0 } : {}),
-    },
+    model: modelAtOperatingPoint(r, r.operating_point),
     correction: { mode: r.correction.mode, K: r.correction.K ?? null },
   };
 }

@@ -9,7 +9,7 @@ import { BacktestUploadFieldsSchema } from '../../contracts/backtests.js';
 import type { ImportMapping } from '../../contracts/ingest.js';
 import type { Db } from '../../db/knex.js';
 import { AppError } from '../../http/errors.js';
-import { readCheckedRows } from '../imports/checked-rows.js';
+import { importRules, readCheckedRows } from '../imports/checked-rows.js';
 import { parseUploadFields, receiveCsv, type IncomingCsv } from '../imports/csv-upload.js';
 import type { LiveLoop } from '../readings/live-loop.js';
 import type { CheckedReading, ReadingRules } from '../readings/reading-checks.js';
@@ -112,14 +112,7 @@ export async function createUploadBacktest(
       rejected: 0,
       badRows: [],
     };
-    const rules: ReadingRules = {
-      inputs: loop.inputs,
-      outputs: loop.outputs,
-      samplePeriodS: loop.samplePeriodS,
-      latestMs: Date.now() + deps.futureToleranceS * 1000,
-      earliestMs: -Infinity,
-      tooOldAdvice: '',
-    };
+    const rules = importRules(loop, deps.futureToleranceS);
     const id = await deps.db.transaction(async (trx) => {
       const job = { loopId: loop.id, versionIds: fields.versionIds, createdBy: actor.id, upload: tally };
       const backtestId = await insertBacktest(trx, job);

@@ -1,4 +1,4 @@
-import { validateModel, type Matrix, type StateSpaceModel } from '@shadowloop/simulator/engine';
+import { modelAtOperatingPoint, validateModel, type Matrix, type StateSpaceModel } from '@shadowloop/simulator/engine';
 import type { ModelVersion, ModelVersionStatus, Signal } from '../../contracts/registry.js';
 import type { Db } from '../../db/knex.js';
 import { AppError } from '../../http/errors.js';
@@ -92,16 +92,7 @@ export async function loadReplayVersions(
 }
 
 function toReplayVersion(row: Raw, loopTag: string): ReplayVersion {
-  const { x0, u0, y0 } = row.operating_point;
-  const model: StateSpaceModel = {
-    A: row.a,
-    B: row.b,
-    ...(row.c ? { C: row.c } : {}),
-    ...(row.d ? { D: row.d } : {}),
-    ...(x0 ? { x0 } : {}),
-    ...(u0 ? { u0 } : {}),
-    ...(y0 ? { y0 } : {}),
-  };
+  const model = modelAtOperatingPoint(row, row.operating_point);
   const problems = validateModel(model);
   if (problems.length)
     throw new AppError(

@@ -1,4 +1,4 @@
-import type { Matrix, StateSpaceModel } from '@shadowloop/simulator/engine';
+import { modelAtOperatingPoint, type Matrix, type StateSpaceModel } from '@shadowloop/simulator/engine';
 import type { Db } from '../../db/knex.js';
 import { conflict } from '../../http/errors.js';
 import { requireLiveLoop } from '../readings/live-loop.js';
@@ -57,19 +57,10 @@ export async function loadTwinStart(db: Db, loopId: string): Promise<TwinStart> 
   if (row.state_version_id !== row.version_id || row.state_k === null || !row.state_x) {
     throw noTwin(loop.tag, 'the simulator has not stepped the active version yet; try again in a few sample periods');
   }
-  const { x0, u0, y0 } = row.operating_point;
-  const model: StateSpaceModel = {
-    A: row.a,
-    B: row.b,
-    ...(row.c ? { C: row.c } : {}),
-    ...(row.d ? { D: row.d } : {}),
-    x0,
-    u0,
-    y0,
-  };
+  const model = modelAtOperatingPoint(row, row.operating_point);
   if (row.state_x.length !== row.a.length)
     throw noTwin(loop.tag, 'the stored twin state does not fit the active version');
-  const u = row.newest_u?.length === loop.inputs ? row.newest_u : (u0 ?? new Array<number>(loop.inputs).fill(0));
+  const u = row.newest_u?.length === loop.inputs ? row.newest_u : (model.u0 ?? new Array<number>(loop.inputs).fill(0));
   return {
     loopId: loop.id,
     tag: loop.tag,

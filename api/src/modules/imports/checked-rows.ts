@@ -6,6 +6,24 @@ import type { CheckedReading, ReadingRules } from '../readings/reading-checks.js
 import { checkRow, planColumns, type ColumnPlan } from './csv-rows.js';
 import type { IncomingCsv } from './csv-upload.js';
 
+/**
+ * The checks of an uploaded file's rows: those of a posted reading, but any age is fine (history is
+ * what a file brings) while the future is refused beyond the tolerance.
+ */
+export function importRules(
+  loop: { inputs: number; outputs: number; samplePeriodS: number },
+  futureToleranceS: number,
+): ReadingRules {
+  return {
+    inputs: loop.inputs,
+    outputs: loop.outputs,
+    samplePeriodS: loop.samplePeriodS,
+    latestMs: Date.now() + futureToleranceS * 1000,
+    earliestMs: -Infinity,
+    tooOldAdvice: '',
+  };
+}
+
 /** What reading a CSV counts: rows read, rows rejected and the first rejected rows with their line. */
 export interface RowTally {
   rowsRead: number;

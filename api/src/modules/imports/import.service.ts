@@ -7,10 +7,10 @@ import type { Db } from '../../db/knex.js';
 import { AppError } from '../../http/errors.js';
 import { requireLiveLoop, type LiveLoop } from '../readings/live-loop.js';
 import type { PartitionKeeper } from '../readings/partitions.js';
-import type { CheckedReading, ReadingRules } from '../readings/reading-checks.js';
+import type { CheckedReading } from '../readings/reading-checks.js';
 import { utcDay } from '../readings/sample-grid.js';
 import { forgetTrendMinutes } from '../series/trend-minutes.js';
-import { readCheckedRows } from './checked-rows.js';
+import { importRules, readCheckedRows } from './checked-rows.js';
 import { parseUploadFields, receiveCsv, type IncomingCsv } from './csv-upload.js';
 import { insertImport, updateImport, type ProgressUpdate } from './import-progress.repository.js';
 import { openImportWriter } from './import-writer.js';
@@ -89,14 +89,7 @@ async function runImport(
   const writer = await openImportWriter(deps.pool, loop.id);
   try {
     const store = chunkStore(deps, loop, id, csv, writer, tally);
-    const rules: ReadingRules = {
-      inputs: loop.inputs,
-      outputs: loop.outputs,
-      samplePeriodS: loop.samplePeriodS,
-      latestMs: Date.now() + deps.futureToleranceS * 1000,
-      earliestMs: -Infinity,
-      tooOldAdvice: '',
-    };
+    const rules = importRules(loop, deps.futureToleranceS);
     await readCheckedRows(csv, mapping, rules, tally, store.add);
     await store.flush();
     await writer.close(false);

@@ -1,5 +1,4 @@
 import { useQuery } from '@tanstack/react-query';
-import type { ReactNode } from 'react';
 import { Link, useParams } from 'react-router';
 import { ErrorNotice } from '../../../components/errors/error-notice';
 import { CautionBlock } from '../../../components/ui/caution-block';
@@ -20,15 +19,7 @@ import { loopQueryOptions } from '../../../features/loops/api/get-loop';
 import { hasRole } from '../../../features/session/roles';
 import { useSignedInUser } from '../../../features/session/use-signed-in-user';
 import { useNow } from '../../../lib/use-now';
-
-function Section({ title, children }: { title: string; children: ReactNode }) {
-  return (
-    <section aria-label={title} className="space-y-2">
-      <h2 className="border-b border-rule pb-1 text-lg font-bold">{title}</h2>
-      {children}
-    </section>
-  );
-}
+import { PageSection } from '../../../components/ui/page-section';
 
 export function AlertDetailPage() {
   const alertId = useParams().alertId ?? '';
@@ -68,18 +59,18 @@ export function AlertDetailPage() {
       <p className="max-w-4xl text-lg font-medium">{a.summary}</p>
       <AlertActions alert={a} mayAct={hasRole(user, 'oncall')} timeZone={timeZone} />
       <AlertFacts alert={a} timeZone={timeZone} nowMs={nowMs} />
-      <Section title="Where the residual points">
+      <PageSection title="Where the residual points">
         <ResidualDirection direction={a.direction} />
-      </Section>
-      <Section title="Values at the raise">
+      </PageSection>
+      <PageSection title="Values at the raise">
         <ValuesAtRaise detail={a.detail} timeZone={timeZone} />
-      </Section>
-      <Section title="Around the raise">
+      </PageSection>
+      <PageSection title="Around the raise">
         <AlertSnapshot alert={a} loop={loop.data} />
-      </Section>
-      <Section title="Timeline">
+      </PageSection>
+      <PageSection title="Timeline">
         <AlertTimeline events={a.events} timeZone={timeZone} />
-      </Section>
+      </PageSection>
       <CautionBlock />
     </div>
   );

@@ -1,5 +1,4 @@
 import { useQuery } from '@tanstack/react-query';
-import type { ReactNode } from 'react';
 import { Link, useParams } from 'react-router';
 import { ErrorNotice } from '../../../components/errors/error-notice';
 import { PageHeader } from '../../../components/ui/page-header';
@@ -20,15 +19,7 @@ import { VersionStatusWord } from '../../../features/models/components/version-s
 import { buildVerdict } from '../../../features/models/utils/verdict';
 import { signalLabel } from '../../../features/models/utils/signal-labels';
 import { useSignedInUser } from '../../../features/session/use-signed-in-user';
-
-function Section({ title, children }: { title: string; children: ReactNode }) {
-  return (
-    <section aria-label={title} className="space-y-2">
-      <h2 className="border-b border-rule pb-1 text-lg font-bold">{title}</h2>
-      {children}
-    </section>
-  );
-}
+import { PageSection } from '../../../components/ui/page-section';
 
 export function VersionAnalysisPage() {
   const versionId = useParams().versionId ?? '';
@@ -66,10 +57,10 @@ export function VersionAnalysisPage() {
       <VerdictBanner verdict={buildVerdict(v.analysis, l.samplePeriodS)} />
       <VersionActionBar version={v} user={user} loop={l} />
       <VersionFacts version={v} timeZone={l.timeZone} />
-      <Section title="Evidence">
+      <PageSection title="Evidence">
         <VersionEvidence version={v} loopId={l.id} timeZone={l.timeZone} />
-      </Section>
-      <Section title="Modes">
+      </PageSection>
+      <PageSection title="Modes">
         <div className="grid items-start gap-4 xl:grid-cols-[20rem_1fr]">
           <EigenvaluePlane
             sets={[{ label: `version ${v.number}`, modes: v.analysis.modes }]}
@@ -77,19 +68,19 @@ export function VersionAnalysisPage() {
           />
           <ModesTable modes={v.analysis.modes} samplePeriodS={l.samplePeriodS} />
         </div>
-      </Section>
-      <Section title="Step responses">
+      </PageSection>
+      <PageSection title="Step responses">
         <StepResponses version={v} loop={l} />
-      </Section>
-      <Section title="State transition explorer">
+      </PageSection>
+      <PageSection title="State transition explorer">
         <TransitionExplorer version={v} stateLabels={states} samplePeriodS={l.samplePeriodS} />
-      </Section>
-      <Section title="Controllability and observability">
+      </PageSection>
+      <PageSection title="Controllability and observability">
         <StructureRanks analysis={v.analysis} states={l.states.length} />
-      </Section>
-      <Section title="Matrices">
+      </PageSection>
+      <PageSection title="Matrices">
         <VersionMatrices version={v} loop={l} />
-      </Section>
+      </PageSection>
     </div>
   );
 }

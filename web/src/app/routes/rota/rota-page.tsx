@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { useState, type ReactNode } from 'react';
+import { useState } from 'react';
 import { useSearchParams } from 'react-router';
 import { ErrorNotice } from '../../../components/errors/error-notice';
 import { Button } from '../../../components/ui/button';
@@ -18,15 +18,7 @@ import { addDays, dayLabel, isPlantDate, mondayOf, plantDateOf, weekDays } from 
 import { hasRole } from '../../../features/session/roles';
 import { useSignedInUser } from '../../../features/session/use-signed-in-user';
 import { useNow } from '../../../lib/use-now';
-
-function Section({ title, children }: { title: string; children: ReactNode }) {
-  return (
-    <section aria-label={title} className="space-y-2">
-      <h2 className="border-b border-rule pb-1 text-lg font-bold">{title}</h2>
-      {children}
-    </section>
-  );
-}
+import { PageSection } from '../../../components/ui/page-section';
 
 function useRotaWeek(timeZone: string) {
   const [params, setParams] = useSearchParams();
@@ -79,7 +71,7 @@ export function RotaPage() {
         }
       />
       <OnCallNowSummary areas={areaList} />
-      <Section title="Week">
+      <PageSection title="Week">
         <div className="flex flex-wrap items-center gap-2">
           <p className="mr-auto font-medium">
             Week of {dayLabel(monday)} {monday.slice(0, 4)}
@@ -116,13 +108,13 @@ export function RotaPage() {
             ? ' Choose a shift to change, swap or delete it.'
             : ' Changing the rota needs the on-call or administrator role.'}
         </p>
-      </Section>
-      <Section title="Area engineers">
+      </PageSection>
+      <PageSection title="Area engineers">
         <AreaEngineersList areas={areaList} />
-      </Section>
-      <Section title="Escalation timings">
+      </PageSection>
+      <PageSection title="Escalation timings">
         <EscalationTimings mayEdit={hasRole(user, 'admin')} />
-      </Section>
+      </PageSection>
       {dialog ? (
         <ShiftDialog
           {...dialog}

@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import { Button } from '../../../components/ui/button';
 import { NoteField } from '../../../components/ui/note-field';
 import { useAlertAction } from '../api/use-alert-action';
 import { serverErrors, topLevelField } from '../utils/server-errors';
 import { FormError } from './form-error';
+import { SubmitOrCancel } from '../../../components/ui/submit-or-cancel';
 
 export function AcknowledgeForm({ alertId, onDone }: { alertId: string; onDone: () => void }) {
   const [note, setNote] = useState('');
@@ -21,14 +21,7 @@ export function AcknowledgeForm({ alertId, onDone }: { alertId: string; onDone: 
       <p>Acknowledging says you have seen the alert and will look into it; escalation to the next person stops.</p>
       <NoteField label="Note (optional)" value={note} onChange={setNote} />
       <FormError message={errors.fields.note ?? errors.general} />
-      <div className="flex gap-2">
-        <Button type="submit" variant="primary" disabled={acknowledge.isPending}>
-          Acknowledge
-        </Button>
-        <Button variant="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <SubmitOrCancel label={'Acknowledge'} pending={acknowledge.isPending} onCancel={onDone} />
     </form>
   );
 }

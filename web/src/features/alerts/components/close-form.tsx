@@ -1,12 +1,12 @@
 import type { CloseCause } from '@shadowloop/api/contracts';
 import { NoteField } from '../../../components/ui/note-field';
 import { useState } from 'react';
-import { Button } from '../../../components/ui/button';
 import { Field, INPUT_CLASSES } from '../../../components/ui/field';
 import { useAlertAction } from '../api/use-alert-action';
 import { CLOSE_CAUSE_LABELS } from '../utils/alert-words';
 import { serverErrors, topLevelField } from '../utils/server-errors';
 import { FormError } from './form-error';
+import { SubmitOrCancel } from '../../../components/ui/submit-or-cancel';
 
 const CAUSES = Object.entries(CLOSE_CAUSE_LABELS) as [CloseCause, string][];
 
@@ -66,14 +66,7 @@ export function CloseForm({ alertId, onDone }: { alertId: string; onDone: () => 
         error={problems.note ?? server.fields.note}
       />
       <FormError message={server.general} />
-      <div className="flex gap-2">
-        <Button type="submit" variant="primary" disabled={close.isPending}>
-          Close the alert
-        </Button>
-        <Button variant="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <SubmitOrCancel label={'Close the alert'} pending={close.isPending} onCancel={onDone} />
     </form>
   );
 }

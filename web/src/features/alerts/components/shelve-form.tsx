@@ -1,7 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { NoteField } from '../../../components/ui/note-field';
 import { useState } from 'react';
-import { Button } from '../../../components/ui/button';
 import { Field, INPUT_CLASSES } from '../../../components/ui/field';
 import { formatDuration } from '../../../lib/format-number';
 import { fromPlantWallTime, toPlantWallTime } from '../../../lib/plant-time';
@@ -10,6 +9,7 @@ import { useAlertAction } from '../api/use-alert-action';
 import { serverErrors, topLevelField } from '../utils/server-errors';
 import { defaultShelveHours, shelveUntilProblem } from '../utils/shelve-limits';
 import { FormError } from './form-error';
+import { SubmitOrCancel } from '../../../components/ui/submit-or-cancel';
 
 type ShelveFormProps = { alertId: string; timeZone: string; onDone: () => void };
 
@@ -74,14 +74,7 @@ export function ShelveForm({ alertId, timeZone, onDone }: ShelveFormProps) {
         error={problems.note ?? server.fields.note}
       />
       <FormError message={server.general} />
-      <div className="flex gap-2">
-        <Button type="submit" variant="primary" disabled={shelve.isPending}>
-          Shelve
-        </Button>
-        <Button variant="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <SubmitOrCancel label={'Shelve'} pending={shelve.isPending} onCancel={onDone} />
     </form>
   );
 }

@@ -9,6 +9,7 @@ import { useUpdateAlertSettings } from '../../alerts/api/update-alert-settings';
 import { FormError } from '../../alerts/components/form-error';
 import { serverErrors, topLevelField } from '../../alerts/utils/server-errors';
 import { readSettings, SETTING_FIELDS, settingsText, type SettingsText } from '../utils/settings-form';
+import { SubmitOrCancel } from '../../../components/ui/submit-or-cancel';
 
 const minutes = (m: number) => formatDuration(m * 60);
 
@@ -67,14 +68,7 @@ function SettingsForm({ settings, onDone }: { settings: AlertSettings; onDone: (
         ))}
       </div>
       <FormError message={server.general} />
-      <div className="flex gap-2">
-        <Button type="submit" variant="primary" disabled={update.isPending}>
-          Save the timings
-        </Button>
-        <Button variant="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <SubmitOrCancel label={'Save the timings'} pending={update.isPending} onCancel={onDone} />
     </form>
   );
 }

@@ -1,6 +1,5 @@
 import type { Shift } from '@shadowloop/api/contracts';
 import { useState } from 'react';
-import { Button } from '../../../components/ui/button';
 import { Field, INPUT_CLASSES } from '../../../components/ui/field';
 import { FormError } from '../../alerts/components/form-error';
 import { serverErrors, topLevelField } from '../../alerts/utils/server-errors';
@@ -8,6 +7,7 @@ import type { Area } from '../../loops/api/get-areas';
 import type { Person } from '../api/get-people';
 import { createShift, updateShift, useRotaChange, type SaveShiftBody } from '../api/shift-changes';
 import { shiftBody, type ShiftFormProblems, type ShiftFormValues } from '../utils/shift-form';
+import { SubmitOrCancel } from '../../../components/ui/submit-or-cancel';
 
 const FIELDS = ['userId', 'area', 'position', 'startsAt', 'endsAt', 'note'] as const;
 
@@ -141,14 +141,7 @@ export function ShiftForm({ shift, initial, people, areas, timeZone, onDone }: S
       </Field>
       <div className="space-y-2 sm:col-span-2">
         <FormError message={server.general} />
-        <div className="flex gap-2">
-          <Button type="submit" variant="primary" disabled={save.isPending}>
-            {shift ? 'Save the shift' : 'Add the shift'}
-          </Button>
-          <Button variant="quiet" onClick={onDone}>
-            Cancel
-          </Button>
-        </div>
+        <SubmitOrCancel label={shift ? 'Save the shift' : 'Add the shift'} pending={save.isPending} onCancel={onDone} />
       </div>
     </form>
   );

@@ -1,4 +1,3 @@
-import type { ReactNode } from 'react';
 import type { Loop } from '../../../loops/api/get-loops';
 import type { Version } from '../../types';
 import { GRID_TITLES, gridLabels } from '../../utils/signal-labels';
@@ -7,15 +6,7 @@ import { EigenvaluePlane } from '../analysis/eigenvalue-plane';
 import { VerdictBanner } from '../verdict-banner';
 import { MatrixComparison } from './matrix-comparison';
 import { StepOverlay } from './step-overlay';
-
-function Section({ title, children }: { title: string; children: ReactNode }) {
-  return (
-    <section aria-label={title} className="space-y-2">
-      <h2 className="border-b border-rule pb-1 text-lg font-bold">{title}</h2>
-      {children}
-    </section>
-  );
-}
+import { PageSection } from '../../../../components/ui/page-section';
 
 /** Two versions of one loop side by side: verdicts, matrices cell by cell, eigenvalues, step responses. */
 export function CompareView({ version, other, loop }: { version: Version; other: Version; loop: Loop }) {
@@ -37,7 +28,7 @@ export function CompareView({ version, other, loop }: { version: Version; other:
   ));
   return (
     <div className="space-y-6">
-      <Section title="Verdicts">
+      <PageSection title="Verdicts">
         <div className="grid gap-3 lg:grid-cols-2">
           {[version, other].map((v) => (
             <div key={v.id} className="space-y-1">
@@ -46,14 +37,14 @@ export function CompareView({ version, other, loop }: { version: Version; other:
             </div>
           ))}
         </div>
-      </Section>
-      <Section title="Matrices">
+      </PageSection>
+      <PageSection title="Matrices">
         <p className="text-sm text-ink/75">
           Cells of {mine} that differ from {theirs} are outlined and say what they were and by how much they changed.
         </p>
         {matrices}
-      </Section>
-      <Section title="Eigenvalues">
+      </PageSection>
+      <PageSection title="Eigenvalues">
         <EigenvaluePlane
           sets={[
             { label: mine, modes: version.analysis.modes },
@@ -61,10 +52,10 @@ export function CompareView({ version, other, loop }: { version: Version; other:
           ]}
           samplePeriodS={loop.samplePeriodS}
         />
-      </Section>
-      <Section title="Step responses">
+      </PageSection>
+      <PageSection title="Step responses">
         <StepOverlay version={version} other={other} loop={loop} />
-      </Section>
+      </PageSection>
     </div>
   );
 }

@@ -4,7 +4,7 @@ import type { AddressInfo } from 'node:net';
 import { pino } from 'pino';
 import { createApp } from '../../api/src/app.js';
 import { loadConfig } from '../../api/src/config/config.js';
-import { createDb } from '../../api/src/db/knex.js';
+import { createDb, type Db } from '../../api/src/db/knex.js';
 import { createTwinPublisher } from '../../api/src/realtime/publisher.js';
 import { createRealtime } from '../../api/src/realtime/realtime.js';
 import { startAlertWorkers, type AlertWorkers } from '../../api/src/workers/alert-workers.js';
@@ -19,6 +19,8 @@ export interface RunningApi {
   workers: AlertWorkers | null;
   /** The backtest worker, unless BACKTEST_WORKERS was 'false'. */
   backtests: BacktestWorker | null;
+  /** The api's own database handle: tests listen to its statements (knex 'query' events). */
+  db: Db;
   close(): Promise<void>;
 }
 
@@ -56,6 +58,7 @@ export async function startApi(stack: StackInfo, env: Record<string, string> = {
     url,
     workers,
     backtests,
+    db,
     close: async () => {
       server.closeAllConnections();
       await workers?.stop();

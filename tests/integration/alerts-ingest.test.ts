@@ -70,6 +70,19 @@ async function sample(r: number): Promise<number> {
   return slotMs;
 }
 
+/** The SQL the api sends while `body` runs. */
+async function statementsDuring<T>(body: () => Promise<T>): Promise<{ result: T; sql: string[] }> {
+  const sql: string[] = [];
+  const listen = (query: { sql: string }) => sql.push(query.sql);
+  api.db.on('query', listen);
+  try {
+    return { result: await body(), sql };
+  } finally {
+    api.db.off('query', listen);
+  }
+}
+const ASYNC_COMMIT = 'SET LOCAL synchronous_commit TO off';
+
 const alertsOfLoop = async () =>
   (await oncall.request<Alert[]>('GET', `/api/v1/alerts?loopId=${twin.loop.id}&state=open`)).body;
 const statusOf = async () =>
@@ -94,7 +107,11 @@ describe('a divergence from reading to e-mail', () => {
     await connected(socket);
     const raised = collect(socket, 'alert:raised');
 
-    for (const r of [0.01, -0.02, 0.05]) await sample(r);
+    // a batch of readings alone commits without waiting for the log flush
+    const quiet = await statementsDuring(async () => {
+      for (const r of [0.01, -0.02, 0.05]) await sample(r);
+    });
+    expect(quiet.sql.filter((s) => s === ASYNC_COMMIT)).toHaveLength(3);
     expect(await alertsOfLoop()).toEqual([]);
     expect(await statusOf()).toBe('in_step');
 
@@ -104,7 +121,11 @@ describe('a divergence from reading to e-mail', () => {
     expect(await alertsOfLoop()).toEqual([]);
     expect(await statusOf()).toBe('drifting');
 
-    const raisingSlot = await sample(0.7);
+    // the batch that raises the alert (and queues its mail) waits for the flush like any other commit
+    const raising = await statementsDuring(() => sample(0.7));
+    const raisingSlot = raising.result;
+    expect(raising.sql.some((s) => /insert into "?alerts"?/i.test(s))).toBe(true);
+    expect(raising.sql).not.toContain(ASYNC_COMMIT);
     const [alert] = await alertsOfLoop();
     expect(alert).toMatchObject({
       rule: 'band',

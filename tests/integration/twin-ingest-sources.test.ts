@@ -82,6 +82,29 @@ describe('ingest sources', () => {
     expect((await db('ingest_sources').where({ id: source.id }).first()).last_used_at).not.toBeNull();
   });
 
+  it('reads and records a fresh token once for a burst of posts that all present it', async () => {
+    const burst = await admin.request<typeof source>(
+      'POST',
+      '/api/v1/ingest-sources',
+      { name: `burst bridge ${scoped.tag}`, description: 'many posts at once', loopIds: [scoped.id] },
+      { csrf: true },
+    );
+    const lookups: string[] = [];
+    const listen = (query: { sql: string }) => {
+      if (/from "ingest_sources" where "token_hash"/.test(query.sql)) lookups.push(query.sql);
+    };
+    api.db.on('query', listen);
+    try {
+      const posts = Array.from({ length: 8 }, (_, i) =>
+        postReadings(api.url, burst.body.token, scoped.id, [reading(slotMsAgo(200 + i), [1], [2])]),
+      );
+      expect((await Promise.all(posts)).map((r) => r.status)).toEqual(new Array(8).fill(200));
+    } finally {
+      api.db.off('query', listen);
+    }
+    expect(lookups).toHaveLength(1);
+  });
+
   it('refuses an ingest token on every other route (403), whatever its method', async () => {
     const doc = (await (await fetch(`${api.url}/api/v1/openapi.json`)).json()) as {
       paths: Record<string, Record<string, { 'x-roles': unknown; 'x-ingest'?: boolean }>>;

@@ -153,4 +153,20 @@ describe('POST /api/v1/loops/{loopId}/readings', () => {
     );
     expect((await postReadings(api.url, token, loop.id, [])).status).toBe(400);
   });
+
+  it('creates day partitions of predictions that keep half of each page free for the residual update', async () => {
+    // a day far ahead, so the partitions are new to this run
+    const day = new Date(Date.now() + 400 * 86_400_000).toISOString().slice(0, 10);
+    await db.raw('SELECT shadowloop_ensure_day_partitions(?::date, ?::date)', [day, day]);
+    const suffix = day.replaceAll('-', '');
+    const options = async (table: string) =>
+      (
+        (await db.raw('SELECT reloptions FROM pg_class WHERE relname = ?', [table])) as {
+          rows: { reloptions: string[] | null }[];
+        }
+      ).rows[0].reloptions;
+    expect(await options(`predictions_${suffix}`)).toEqual(['fillfactor=50']);
+    expect(await options(`readings_${suffix}`)).toBeNull();
+    await db.raw(`DROP TABLE predictions_${suffix}, readings_${suffix}`);
+  });
 });

@@ -29,6 +29,8 @@ const ConfigSchema = z.object({
   INGEST_MAX_BODY_MB: z.coerce.number().positive().max(256).default(16),
   INGEST_FUTURE_TOLERANCE_S: z.coerce.number().min(0).default(60),
   INGEST_MAX_AGE_DAYS: z.coerce.number().positive().default(30),
+  /** Every readings batch waits for its commit to reach the disk, not only those that change alerts. */
+  INGEST_SYNCHRONOUS_COMMIT: flag.default(false),
   IMPORT_MAX_FILE_MB: z.coerce.number().positive().max(4096).default(200),
   /** The api's background work: mail outbox sender, shelve expiry, escalation, stale rules. */
   ALERT_WORKERS: flag.default(true),

@@ -28,6 +28,7 @@ export function registerLiveTwinRoutes(routes: RouteTable, deps: LiveTwinDeps): 
     ...shared,
     publisher: deps.publisher,
     maxAgeDays: config.INGEST_MAX_AGE_DAYS,
+    synchronousCommit: config.INGEST_SYNCHRONOUS_COMMIT,
     ratePerMinute: config.INGEST_RATE_LIMIT_PER_MINUTE,
   });
   registerImportRoutes(routes, { ...shared, pool: deps.pool, maxFileBytes: config.IMPORT_MAX_FILE_MB * 1024 * 1024 });

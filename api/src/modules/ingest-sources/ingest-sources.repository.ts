@@ -87,16 +87,34 @@ export const INGEST_LOOKUP_TTL_MS = 60_000;
 const tokens = createTtlCache<string, { sourceId: string; name: string }>(INGEST_LOOKUP_TTL_MS);
 const scopes = createTtlCache<string, true>(INGEST_LOOKUP_TTL_MS, 100_000);
 
+/** Bumped by every forget: a look-up that started before a revocation does not refill the cache. */
+let lookupGeneration = 0;
+
 export function forgetIngestLookups(): void {
+  lookupGeneration += 1;
   tokens.clear();
   scopes.clear();
+  pendingLookups.clear();
 }
+
+/** Look-ups under way, by token hash: a burst of posts with one token reads and records it once. */
+const pendingLookups = new Map<string, Promise<{ sourceId: string; name: string } | undefined>>();
 
 /** Resolves a presented ingest token to its source, or undefined when unknown or revoked; records its use once a minute. */
 export async function useIngestToken(db: Db, token: string): Promise<{ sourceId: string; name: string } | undefined> {
   const hash = hashToken(token);
   const known = tokens.get(hash);
   if (known) return known;
+  let pending = pendingLookups.get(hash);
+  if (!pending) {
+    pending = lookUpIngestToken(db, hash).finally(() => pendingLookups.delete(hash));
+    pendingLookups.set(hash, pending);
+  }
+  return pending;
+}
+
+async function lookUpIngestToken(db: Db, hash: string): Promise<{ sourceId: string; name: string } | undefined> {
+  const generation = lookupGeneration;
   const row = (await db('ingest_sources')
     .where({ token_hash: hash })
     .whereNull('revoked_at')
@@ -106,7 +124,7 @@ export async function useIngestToken(db: Db, token: string): Promise<{ sourceId:
     await db('ingest_sources').where({ id: row.id }).update({ last_used_at: db.fn.now() });
   }
   const source = { sourceId: row.id, name: row.name };
-  tokens.set(hash, source);
+  if (generation === lookupGeneration) tokens.set(hash, source);
   return source;
 }
 

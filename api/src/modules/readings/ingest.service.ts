@@ -1,3 +1,4 @@
+import type { Knex } from 'knex';
 import type { IngestPrincipal } from '../../auth/ingest-principal.js';
 import type { IngestResult } from '../../contracts/ingest.js';
 import type { Db } from '../../db/knex.js';
@@ -20,6 +21,8 @@ export interface IngestDeps {
   publisher: TwinPublisher;
   futureToleranceS: number;
   maxAgeDays: number;
+  /** Every batch waits for the commit's flush (INGEST_SYNCHRONOUS_COMMIT); see {@link commitDurably}. */
+  synchronousCommit: boolean;
 }
 
 function rulesFor(target: LiveLoop, deps: IngestDeps, nowMs: number): ReadingRules {
@@ -52,6 +55,22 @@ function sortBatch(items: unknown[], rules: ReadingRules) {
 }
 
 /**
+ * How the ingest transaction commits. A batch that raised, cleared or otherwise changed an alert
+ * (whose mail waits in the outbox) commits as every other transaction does: the answer waits until
+ * the commit is on disk. A batch of readings alone commits asynchronously: the answer does not wait
+ * for the write-ahead log's flush, which on a busy or virtualised disk can stall for a second and
+ * would hold up every reading behind it. The database stays consistent; only a crash of PostgreSQL
+ * itself (not of the api) can lose the last fraction of a second of such batches (at most three
+ * times wal_writer_delay, 0.6 s by default), and then readings, residuals and rule states roll
+ * back together, so the rules pick up from the stored state with the next reading. Bridges that
+ * must never lose an acknowledged reading re-send their last few readings: the ingest counts them
+ * as duplicates. INGEST_SYNCHRONOUS_COMMIT=true makes every batch wait for the flush.
+ */
+async function commitDurably(trx: Knex.Transaction, changes: unknown[], synchronous: boolean): Promise<void> {
+  if (changes.length === 0 && !synchronous) await trx.raw('SET LOCAL synchronous_commit TO off');
+}
+
+/**
  * Stores a batch of readings: each is checked and slotted, the good ones are inserted once per slot,
  * scored against the twin's predictions, folded into the loop's tracking and judged by the loop's
  * drift rules (raising or clearing alerts, mail queued in the outbox), all in one transaction; then
@@ -79,6 +98,7 @@ export async function ingestReadings(
     const { tracking: after, changes } = await checkDrift(trx, target, before, folded, stored, new Date(nowMs));
     await saveTracking(trx, target.id, after);
     await forgetTrendMinutes(trx, target, stored[0].slotMs, stored[stored.length - 1].slotMs);
+    await commitDurably(trx, changes, deps.synchronousCommit);
     return { before, after, stored, changes };
   });
   if (outcome.stored.length) announceBatch(deps.publisher, target, outcome, nowMs);

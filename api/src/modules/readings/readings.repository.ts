@@ -12,12 +12,13 @@ const iso = (ms: number) => new Date(ms).toISOString();
  * stands before the batch; unnest the batch (checked, one reading per slot) into readings, where
  * ON CONFLICT DO NOTHING keeps a slot's earlier reading; write each new reading's residual y − ŷ
  * into the prediction the twin stored for its slot; return the slot of each new reading with its
- * residual (the prediction itself only for the newest, which goes out as a twin sample). The
+ * residual (the prediction itself only for the newest, which goes out as a twin sample), in one
+ * row beside the tracking columns as JSON arrays in slot order, so the answer is parsed once. The
  * readings insert joins the locked row, so the lock is always taken before any reading is written
  * (the same order as a separate lock statement). u and y travel as one flat array each and are cut
  * back into rows by position. The batch's first and last slot bound the predictions lookup, so it
- * touches only the partitions and index range of the batch. At least one row comes back (the
- * tracking columns; k null when nothing new was stored).
+ * touches only the partitions and index range of the batch. Exactly one row comes back (ks null
+ * when nothing new was stored).
  */
 const INSERT_SCORED = `
 WITH tracking AS (${LOCK_TRACKING_SQL}
@@ -38,11 +39,13 @@ WITH tracking AS (${LOCK_TRACKING_SQL}
   RETURNING p.slot_at, p.y, p.residual
 )
 SELECT t.status, t.last_reading_at, t.last_slot_at, t.residual_count, t.residual_mean, t.residual_m2,
-  t.last_residual, t.worst_band_fraction, t.rule_state,
-  n.k, s.residual, CASE WHEN n.k = (SELECT max(k) FROM inserted) THEN s.y END AS predicted
-FROM tracking t LEFT JOIN (inserted n LEFT JOIN scored s USING (slot_at)) ON true`;
+  t.last_residual, t.worst_band_fraction, t.rule_state, stored.ks, stored.residuals, stored.predicted
+FROM tracking t, (
+  SELECT json_agg(n.k ORDER BY n.k) AS ks, json_agg(s.residual ORDER BY n.k) AS residuals,
+    json_agg(s.y ORDER BY n.k DESC) -> 0 AS predicted
+  FROM inserted n LEFT JOIN scored s USING (slot_at)) stored`;
 
-type Raw = TrackingRaw & { k: string | null; residual: number[] | null; predicted: number[] | null };
+type Raw = TrackingRaw & { ks: number[] | null; residuals: (number[] | null)[] | null; predicted: number[] | null };
 
 /**
  * Locks the loop's tracking row and stores the (checked, one per slot) readings; returns the
@@ -73,19 +76,17 @@ export async function insertScoredReadings(
     iso(Math.max(...slots)),
   ])) as { rows: Raw[] };
   const byK = new Map(readings.map((r) => [r.k, r]));
-  const stored = rows
-    .filter((row) => row.k !== null)
-    .map((row) => {
-      const reading = byK.get(Number(row.k)) as CheckedReading;
-      return {
-        k: reading.k,
-        slotMs: reading.slotMs,
-        tMs: reading.tMs,
-        measured: reading.y,
-        predicted: row.predicted,
-        residual: row.residual,
-      };
-    })
-    .sort((a, b) => a.k - b.k);
+  const { ks, residuals, predicted } = rows[0];
+  const stored = (ks ?? []).map((k, i, all) => {
+    const reading = byK.get(k) as CheckedReading;
+    return {
+      k,
+      slotMs: reading.slotMs,
+      tMs: reading.tMs,
+      measured: reading.y,
+      predicted: i === all.length - 1 ? predicted : null,
+      residual: residuals?.[i] ?? null,
+    };
+  });
   return { before: trackingStateOf(rows[0]), stored };
 }

@@ -1,10 +1,15 @@
 import http from 'node:http';
 
-/** POSTs JSON over a small pool of kept-alive loopback connections; resolves with status and body. */
+/**
+ * POSTs JSON over a small pool of kept-alive loopback connections; resolves with status and body.
+ * A post that meets a reset on a reused connection (the server closed it as idle just as the post
+ * went out) is sent once more on a fresh one, as Node's documentation advises: readings posts are
+ * idempotent, a slot already stored counts as a duplicate.
+ */
 export function createPoster(baseUrl: string, token: string, maxSockets = 16) {
   const agent = new http.Agent({ keepAlive: true, maxSockets });
   const { hostname, port } = new URL(baseUrl);
-  function post(path: string, body: string): Promise<{ status: number; text: string }> {
+  function send(path: string, body: string, retried: boolean): Promise<{ status: number; text: string }> {
     return new Promise((resolve, reject) => {
       const request = http.request(
         {
@@ -28,11 +33,15 @@ export function createPoster(baseUrl: string, token: string, maxSockets = 16) {
           response.on('error', reject);
         },
       );
-      request.on('error', reject);
+      request.on('error', (error: NodeJS.ErrnoException) => {
+        const closedUnderUs = request.reusedSocket && (error.code === 'ECONNRESET' || error.code === 'EPIPE');
+        if (closedUnderUs && !retried) send(path, body, true).then(resolve, reject);
+        else reject(error);
+      });
       request.end(body);
     });
   }
-  return { post, close: () => agent.destroy() };
+  return { post: (path: string, body: string) => send(path, body, false), close: () => agent.destroy() };
 }
 
 /** One readings body: `count` readings of loop slots fromK…, one input and one output each. */

@@ -75,7 +75,7 @@ describe('an alert on its own page', () => {
     expect(series?.get('to')).toBe('2025-06-03T09:18:20.000Z');
     const timeline = screen.getByRole('list', { name: 'Timeline' });
     expect(within(timeline).getByText('Notified by e-mail')).toBeTruthy();
-    expect(within(timeline).getByText('to: oncall@quillmere.example')).toBeTruthy();
+    expect(within(timeline).getByText('to oncall@quillmere.example, for the raise')).toBeTruthy();
     expect(screen.getByText(ADVISORY_CAUTION[0])).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Acknowledge…' })).toBeNull();
     expect(screen.getByText('Acknowledging, shelving and closing alerts needs the on-call role.')).toBeTruthy();

@@ -1,14 +1,7 @@
 import type { AlertEvent } from '@shadowloop/api/contracts';
 import { formatPlantTime } from '../../../lib/plant-time';
 import { ALERT_STATE_WORDS, EVENT_WORDS } from '../utils/alert-words';
-
-/** Details worth showing as they are: short words and numbers (recipients, escalation level). */
-function plainDetails(details: Record<string, unknown>): string {
-  return Object.entries(details)
-    .filter(([, value]) => ['string', 'number', 'boolean'].includes(typeof value))
-    .map(([key, value]) => `${key.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase()}: ${String(value)}`)
-    .join(' · ');
-}
+import { eventDetailWords } from '../utils/event-details';
 
 function StateChange({ event }: { event: AlertEvent }) {
   if (!event.toState || event.fromState === event.toState) return null;
@@ -27,7 +20,7 @@ export function AlertTimeline({ events, timeZone }: { events: AlertEvent[]; time
   return (
     <ol aria-label="Timeline" className="space-y-0 border-l-2 border-rule pl-4 text-sm">
       {ordered.map((event) => {
-        const details = plainDetails(event.details);
+        const details = eventDetailWords(event, timeZone);
         return (
           <li key={event.id} className="relative pb-3">
             <span

@@ -79,7 +79,7 @@ export function withEvents(alert: Alert, events: AlertWithEvents['events'] = [])
             fromState: null,
             toState: null,
             note: null,
-            details: { to: 'oncall@quillmere.example' },
+            details: { to: 'oncall@quillmere.example', reason: 'raised' },
           },
         ],
   };

@@ -37,7 +37,7 @@ describe('the top strip and the waiting-alerts banner', () => {
 
     const banner = screen.getByRole('status', { name: 'Alerts waiting for acknowledgement' });
     expect(banner.textContent).toContain('2 alerts wait for acknowledgement');
-    expect(banner.textContent).toContain('newest: AER-DO-101 band, 3 minutes ago');
+    expect(banner.textContent).toContain('most urgent: AER-DO-101 band, active, raised 3 minutes ago');
 
     act(() =>
       socket.alert(

@@ -90,7 +90,7 @@ describe('the alert queue', () => {
       }),
     );
     renderApp('/alerts');
-    const table = await screen.findByRole('table', { name: 'Alerts, newest first' });
+    const table = await screen.findByRole('table', { name: /^Alerts, most urgent first/ });
     await within(table).findByRole('link', { name: 'Alert 11' });
     expect(within(table).queryByRole('checkbox', { name: 'Select alert 13' })).toBeNull();
     fireEvent.click(within(table).getByRole('checkbox', { name: 'Select every waiting alert shown' }));
@@ -108,7 +108,7 @@ describe('the alert queue', () => {
     const socket = installFakeSocket();
     const fetchMock = stubFetch(routes(['operator'], { 'GET /api/v1/alerts': { body: [fakeAlert({ number: 21 })] } }));
     renderApp('/alerts');
-    const table = await screen.findByRole('table', { name: 'Alerts, newest first' });
+    const table = await screen.findByRole('table', { name: /^Alerts, most urgent first/ });
     await within(table).findByRole('link', { name: 'Alert 21' });
     const asked = queriesTo(fetchMock, 'GET', '/api/v1/alerts').length;
     act(() => socket.alert(fakeAlert({ number: 22, raisedAt: '2025-06-03T10:00:00Z' }), 'raised'));

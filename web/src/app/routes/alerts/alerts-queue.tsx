@@ -9,6 +9,7 @@ import { BulkAcknowledge } from '../../../features/alerts/components/bulk-acknow
 import { QueueFilters } from '../../../features/alerts/components/queue-filters';
 import { alertsQueryOptions } from '../../../features/alerts/api/get-alerts';
 import { usePlantTimeZone } from '../../../features/alerts/hooks/use-plant-time-zone';
+import { orderAlerts } from '../../../features/alerts/utils/alert-order';
 import { isWaiting } from '../../../features/alerts/utils/alert-words';
 import { queueFilters, readQueueSearch, writeQueueSearch } from '../../../features/alerts/utils/queue-search';
 import { areasQueryOptions } from '../../../features/loops/api/get-areas';
@@ -94,8 +95,12 @@ export function AlertsQueuePage() {
         <NoAlerts filtered={writeQueueSearch(search).toString() !== ''} />
       ) : (
         <AlertsTable
-          caption="Alerts, newest first"
-          alerts={alerts.data}
+          caption={
+            search.order === 'newest'
+              ? 'Alerts, newest first'
+              : 'Alerts, most urgent first: waiting for acknowledgement, then by priority'
+          }
+          alerts={alerts.data && orderAlerts(alerts.data, search.order)}
           timeZone={timeZone}
           nowMs={nowMs}
           selection={mayAcknowledge ? selection : undefined}

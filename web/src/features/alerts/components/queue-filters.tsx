@@ -6,6 +6,7 @@ import type { Area } from '../../loops/api/get-areas';
 import type { Loop } from '../../loops/api/get-loops';
 import { CustomRangeForm } from '../../twin/components/custom-range-form';
 import { WAITING_STATES } from '../utils/alert-filters';
+import { ORDER_WORDS, type QueueOrder } from '../utils/alert-order';
 import { ALERT_STATE_WORDS, PRIORITY_WORDS } from '../utils/alert-words';
 import { customWindow, type QueueRange, type QueueSearch } from '../utils/queue-search';
 
@@ -32,6 +33,7 @@ const DEFAULT_SEARCH: QueueSearch = {
   range: 'any',
   from: '',
   to: '',
+  order: 'urgent',
 };
 
 type QueueFiltersProps = {
@@ -124,6 +126,13 @@ export function QueueFilters({ search, areas, loops, timeZone, onChange }: Queue
           {RANGE_CHOICES.map((choice) => (
             <option key={choice.value} value={choice.value}>
               {choice.label}
+            </option>
+          ))}
+        </Select>
+        <Select label="Order" value={search.order} onChange={(order) => update({ order: order as QueueOrder })}>
+          {Object.entries(ORDER_WORDS).map(([value, label]) => (
+            <option key={value} value={value}>
+              {label}
             </option>
           ))}
         </Select>

@@ -2,6 +2,7 @@ import { Link } from 'react-router';
 import { formatAgo } from '../../../lib/format-time';
 import { useNow } from '../../../lib/use-now';
 import { useWaitingAlerts, WAITING_QUEUE_PATH } from '../hooks/use-waiting-alerts';
+import { orderAlerts } from '../utils/alert-order';
 import { RULE_WORDS } from '../utils/alert-words';
 
 /** Under the top strip for on-call users while any alert waits for acknowledgement. */
@@ -10,7 +11,8 @@ export function WaitingAlertsBanner() {
   useNow(30_000);
   const alerts = waiting.data ?? [];
   if (alerts.length === 0) return null;
-  const newest = alerts[0];
+  // the one to look at first: still active before cleared, then by priority
+  const first = orderAlerts(alerts, 'urgent')[0];
   const count = alerts.length;
   return (
     <div
@@ -20,11 +22,11 @@ export function WaitingAlertsBanner() {
     >
       <span className="font-bold">{count === 1 ? '1 alert waits' : `${count} alerts wait`} for acknowledgement</span>
       <span>
-        — newest:{' '}
-        <Link to={`/alerts/${newest.id}`} className="font-medium underline">
-          {newest.loopTag} {RULE_WORDS[newest.rule]}
+        — most urgent:{' '}
+        <Link to={`/alerts/${first.id}`} className="font-medium underline">
+          {first.loopTag} {RULE_WORDS[first.rule]}
         </Link>
-        , {formatAgo(newest.raisedAt)}
+        , {first.active ? 'active' : 'cleared'}, raised {formatAgo(first.raisedAt)}
       </span>
       <Link to={WAITING_QUEUE_PATH} className="ml-auto underline">
         Open the waiting alerts

@@ -1,5 +1,6 @@
 import type { AlertState, Priority } from '@shadowloop/api/contracts';
 import type { AlertFilters } from './alert-filters';
+import type { QueueOrder } from './alert-order';
 import { ALERT_STATE_WORDS } from './alert-words';
 
 export const RANGES = { any: null, '24h': 24, '7d': 7 * 24, '30d': 30 * 24 } as const;
@@ -16,6 +17,8 @@ export type QueueSearch = {
   /** ISO instants of a custom range. */
   from: string;
   to: string;
+  /** `urgent` (the default) or `newest`. */
+  order: QueueOrder;
 };
 
 const KNOWN_STATES = new Set<string>(Object.keys(ALERT_STATE_WORDS));
@@ -46,6 +49,7 @@ export function readQueueSearch(params: URLSearchParams): QueueSearch {
     range: readRange(params),
     from: readInstant(params.get('from')),
     to: readInstant(params.get('to')),
+    order: params.get('order') === 'newest' ? 'newest' : 'urgent',
   };
 }
 
@@ -68,6 +72,7 @@ export function writeQueueSearch(search: QueueSearch): URLSearchParams {
     if (search.from) params.set('from', search.from);
     if (search.to) params.set('to', search.to);
   } else if (search.range !== 'any') params.set('range', search.range);
+  if (search.order === 'newest') params.set('order', 'newest');
   return params;
 }
 

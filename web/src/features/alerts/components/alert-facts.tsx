@@ -34,7 +34,7 @@ export function AlertFacts({ alert, timeZone, nowMs }: { alert: Alert; timeZone:
       </Fact>
       <Fact label="Raised">{at(alert.raisedAt)}</Fact>
       <Fact label="Condition">
-        <ConditionWord active={alert.active} /> <span className="text-ink/75">{conditionDuration(alert, nowMs)}</span>
+        <ConditionWord alert={alert} /> <span className="text-ink/75">{conditionDuration(alert, nowMs)}</span>
       </Fact>
       <Fact label="Times raised">{alert.activations}</Fact>
       <Fact label="Escalation">{ESCALATION_WORDS[Math.max(0, Math.min(alert.escalationLevel, 2))]}</Fact>

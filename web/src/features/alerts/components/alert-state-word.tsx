@@ -1,5 +1,6 @@
 import type { AlertState } from '@shadowloop/api/contracts';
 import { StatusWord } from '../../../components/ui/status-word';
+import { conditionWord, type TimedCondition } from '../utils/alert-times';
 import { ALERT_STATE_TONES, ALERT_STATE_WORDS } from '../utils/alert-words';
 
 export function AlertStateWord({ state }: { state: AlertState }) {
@@ -7,6 +8,7 @@ export function AlertStateWord({ state }: { state: AlertState }) {
 }
 
 /** Whether the condition is present now, in words. */
-export function ConditionWord({ active }: { active: boolean }) {
-  return <StatusWord tone={active ? 'diverged' : 'none'} label={active ? 'active' : 'cleared'} />;
+export function ConditionWord({ alert }: { alert: TimedCondition }) {
+  const word = conditionWord(alert);
+  return <StatusWord tone={word === 'active' ? 'diverged' : 'none'} label={word} />;
 }

@@ -110,7 +110,7 @@ export function AlertsTable({ caption, alerts, timeZone, nowMs, selection, showL
               <AlertStateWord state={alert.state} />
             </Td>
             <Td>
-              <ConditionWord active={alert.active} />
+              <ConditionWord alert={alert} />
             </Td>
             <Td className="whitespace-nowrap">{when(alert.raisedAt, timeZone)}</Td>
             <Td className="whitespace-nowrap">{conditionDuration(alert, nowMs)}</Td>

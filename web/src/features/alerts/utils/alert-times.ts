@@ -1,11 +1,22 @@
 import { formatDuration } from '../../../lib/format-number';
 
-type Timed = { active: boolean; raisedAt: string; clearedAt: string | null };
+export type TimedCondition = { active: boolean; raisedAt: string; clearedAt: string | null; closedAt: string | null };
 
-/** How long the condition has lasted: up to now while active, up to its clearing once cleared. */
-export function conditionDuration(alert: Timed, nowMs: number): string {
+/**
+ * The condition in a word: `active`, `cleared`, or — for an alert closed while its condition was
+ * still present — `closed before it cleared` (a closed alert no longer follows its condition).
+ */
+export function conditionWord(alert: TimedCondition): string {
+  if (alert.active) return 'active';
+  return alert.clearedAt || !alert.closedAt ? 'cleared' : 'closed before it cleared';
+}
+
+/** How long the condition lasted: up to now while active, up to its clearing, or up to the close. */
+export function conditionDuration(alert: TimedCondition, nowMs: number): string {
   const raised = Date.parse(alert.raisedAt);
-  const end = alert.active || !alert.clearedAt ? nowMs : Date.parse(alert.clearedAt);
-  const text = formatDuration(Math.max(0, (end - raised) / 1000));
-  return alert.active || !alert.clearedAt ? `${text} so far` : `${text}, then cleared`;
+  const span = (endMs: number) => formatDuration(Math.max(0, (endMs - raised) / 1000));
+  if (alert.active) return `${span(nowMs)} so far`;
+  if (alert.clearedAt) return `${span(Date.parse(alert.clearedAt))}, then cleared`;
+  if (alert.closedAt) return `${span(Date.parse(alert.closedAt))}, then closed`;
+  return `${span(nowMs)} so far`;
 }

@@ -11,6 +11,12 @@ export const BACKTEST_LIMITS = {
   maxVersions: 4,
   /** Slots in one backtest (about 35 days at 1 s). */
   maxSamples: 3_000_000,
+  /**
+   * Slots × signals (inputs plus outputs) of one recording: the replay holds the recording and
+   * each version's predictions as arrays of doubles in the api process, so this bounds its memory
+   * (30 million values: 3,000,000 slots of 10 signals, or 600,000 slots of 50).
+   */
+  maxValues: 30_000_000,
   /** Lags of the residual autocorrelation, τ = 0 … maxLag. */
   maxLag: 25,
   /** Points of the measured-against-predicted chart (min and max per bucket). */

@@ -73,7 +73,7 @@ async function readUpload(
     tally.accepted += accepted;
     tally.duplicates += chunk.length - accepted;
     chunk = [];
-    requireSlotLimit(span.lastK - span.firstK + 1, rules.samplePeriodS, `The file "${tally.fileName}"`);
+    requireSlotLimit(span.lastK - span.firstK + 1, rules, `The file "${tally.fileName}"`);
   };
   await readCheckedRows(csv, mapping, rules, tally, async (line, reading) => {
     span.firstK = Math.min(span.firstK, reading.k);

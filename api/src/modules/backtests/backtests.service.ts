@@ -25,15 +25,30 @@ export const MIN_READINGS = 2 * BACKTEST_LIMITS.maxLag + 2;
 const LIST_LIMIT = 50;
 const count = (n: number) => n.toLocaleString('en-GB');
 
-/** 422 when a recording of `slots` slots is longer than a backtest takes. */
-export function requireSlotLimit(slots: number, samplePeriodS: number, what: string): void {
-  if (slots <= BACKTEST_LIMITS.maxSamples) return;
-  const days = (BACKTEST_LIMITS.maxSamples * samplePeriodS) / 86_400;
+/**
+ * 422 when a recording of `slots` slots is longer than a backtest takes: more than maxSamples
+ * slots, or more than maxValues slots × signals (the arrays the replay holds in memory).
+ */
+export function requireSlotLimit(
+  slots: number,
+  loop: { samplePeriodS: number; inputs: number; outputs: number },
+  what: string,
+): void {
+  const { samplePeriodS } = loop;
+  const signals = loop.inputs + loop.outputs;
+  const fitting = Math.min(BACKTEST_LIMITS.maxSamples, Math.floor(BACKTEST_LIMITS.maxValues / signals));
+  if (slots <= fitting) return;
+  const days = (fitting * samplePeriodS) / 86_400;
+  const limit =
+    fitting < BACKTEST_LIMITS.maxSamples
+      ? `a backtest holds at most ${count(BACKTEST_LIMITS.maxValues)} values (slots × signals) in memory, ` +
+        `which for this loop's ${signals} signals is ${count(fitting)} slots`
+      : `a backtest takes at most ${count(BACKTEST_LIMITS.maxSamples)} slots`;
   throw new AppError(
     422,
     'recording_too_long',
-    `${what} spans ${count(slots)} slots at ${samplePeriodS} s; a backtest takes at most ` +
-      `${count(BACKTEST_LIMITS.maxSamples)} slots (${days.toFixed(1)} days at this sample period). Shorten it.`,
+    `${what} spans ${count(slots)} slots at ${samplePeriodS} s; ${limit} (${days.toFixed(1)} days at this ` +
+      'sample period). Shorten it.',
   );
 }
 
@@ -85,7 +100,7 @@ export async function createRangeBacktest(db: Db, actor: SignedInUser, loopId: s
   const fromMs = Date.parse(body.from);
   const toMs = Date.parse(body.to);
   const what = `The range ${new Date(fromMs).toISOString()} … ${new Date(toMs).toISOString()}`;
-  requireSlotLimit(slotsBetween(fromMs, toMs, loop.samplePeriodS), loop.samplePeriodS, what);
+  requireSlotLimit(slotsBetween(fromMs, toMs, loop.samplePeriodS), loop, what);
   const [{ readings }] = await db('readings')
     .where('loop_id', loop.id)
     .where('slot_at', '>=', new Date(fromMs))

@@ -6,7 +6,34 @@ type DialogProps = {
   children: ReactNode;
 };
 
-/** A modal panel: focus moves in when it opens and Escape closes it. */
+const FOCUSABLE =
+  'a[href], button:not([disabled]), input:not([disabled]), select:not([disabled]), textarea:not([disabled]), [tabindex]:not([tabindex="-1"])';
+
+/**
+ * Tab and Shift+Tab go round the panel's own controls (WAI-ARIA modal dialog pattern): focus never
+ * wanders to the page behind the dialog.
+ */
+function keepFocusInside(panel: HTMLElement, event: KeyboardEvent): void {
+  const focusable = [...panel.querySelectorAll<HTMLElement>(FOCUSABLE)];
+  if (focusable.length === 0) {
+    event.preventDefault();
+    panel.focus();
+    return;
+  }
+  const first = focusable[0];
+  const last = focusable[focusable.length - 1];
+  const active = document.activeElement;
+  const outside = !panel.contains(active) || active === panel;
+  if (event.shiftKey && (outside || active === first)) {
+    event.preventDefault();
+    last.focus();
+  } else if (!event.shiftKey && (outside || active === last)) {
+    event.preventDefault();
+    first.focus();
+  }
+}
+
+/** A modal panel: focus moves in when it opens, stays inside while it is open, and Escape closes it. */
 export function Dialog({ title, onClose, children }: DialogProps) {
   const titleId = useId();
   const panelRef = useRef<HTMLDivElement>(null);
@@ -21,6 +48,7 @@ export function Dialog({ title, onClose, children }: DialogProps) {
     panelRef.current?.focus();
     const onKeyDown = (event: KeyboardEvent) => {
       if (event.key === 'Escape') closeRef.current();
+      else if (event.key === 'Tab' && panelRef.current) keepFocusInside(panelRef.current, event);
     };
     document.addEventListener('keydown', onKeyDown);
     return () => {

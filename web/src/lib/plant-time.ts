@@ -73,3 +73,9 @@ export function formatAxisTime(ms: number, timeZone: string, spanMs: number): st
   const time = `${pad(p.hour)}:${pad(p.minute)}${spanMs <= 5 * 60_000 ? `:${pad(p.second)}` : ''}`;
   return spanMs > 36 * 3_600_000 ? `${p.day} ${MONTHS[p.month - 1]} ${time}` : time;
 }
+
+/** An ISO instant as `2025-06-01 14:03:20 BST` on the plant's clock; '—' when missing or not a time. */
+export function formatPlantTimestamp(iso: string | null | undefined, timeZone: string): string {
+  const ms = Date.parse(iso ?? '');
+  return Number.isNaN(ms) ? '—' : formatPlantTime(ms, timeZone, { date: true });
+}

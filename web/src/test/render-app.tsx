@@ -1,10 +1,14 @@
-import { cleanup, render } from '@testing-library/react';
+import { cleanup, configure, render } from '@testing-library/react';
 import { createMemoryRouter } from 'react-router';
 import { afterEach, vi } from 'vitest';
 import { createShadowloopApp } from '../app/create-app';
 import { AppProvider } from '../app/provider';
 import { forgetCsrfToken } from '../lib/api';
 import { keepSocketsOffline } from './fake-socket';
+
+// The whole app renders with lazy routes; on a loaded 2-core runner a page can take over the
+// default second to appear, which is slowness, not a fault the test looks for.
+configure({ asyncUtilTimeout: 5000 });
 
 afterEach(() => {
   cleanup();

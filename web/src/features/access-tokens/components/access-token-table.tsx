@@ -1,11 +1,12 @@
 import { useQuery } from '@tanstack/react-query';
 import { ErrorNotice } from '../../../components/errors/error-notice';
 import { SkeletonRows, Table, Td, Th } from '../../../components/ui/table';
-import { formatTimestamp } from '../../../lib/format-time';
+import { usePlantTimestamp } from '../../alerts/hooks/use-plant-time-zone';
 import { accessTokensQueryOptions, type AccessToken, type AccessTokenScope } from '../api/get-access-tokens';
 import { RevokeTokenButton } from './revoke-token-button';
 
 function TokenRow({ token, showOwner }: { token: AccessToken; showOwner: boolean }) {
+  const formatTimestamp = usePlantTimestamp();
   return (
     <tr className={token.revokedAt ? 'text-ink/60' : undefined}>
       {showOwner ? <Td>{token.userEmail ?? '—'}</Td> : null}

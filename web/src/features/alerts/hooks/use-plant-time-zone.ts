@@ -1,3 +1,4 @@
+import { formatPlantTimestamp } from '../../../lib/plant-time';
 import { useQuery } from '@tanstack/react-query';
 import { loopsQueryOptions, type Loop } from '../../loops/api/get-loops';
 
@@ -29,4 +30,10 @@ export function usePlantClock(): { timeZone: string; settled: boolean } {
     timeZone: mostCommonTimeZone(loops.data ?? []) ?? browserTimeZone(),
     settled: loops.isSuccess || loops.isError,
   };
+}
+
+/** Formats ISO instants on the plant's clock with the zone's abbreviation (admin tables, logs). */
+export function usePlantTimestamp(): (iso: string | null | undefined) => string {
+  const timeZone = usePlantTimeZone();
+  return (iso) => formatPlantTimestamp(iso, timeZone);
 }

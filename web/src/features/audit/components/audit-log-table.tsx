@@ -1,5 +1,5 @@
 import { SkeletonRows, Table, Td, Th } from '../../../components/ui/table';
-import { formatTimestamp } from '../../../lib/format-time';
+import { usePlantTimestamp } from '../../alerts/hooks/use-plant-time-zone';
 import type { AuditEntry } from '../api/get-audit-log';
 import { describeTarget } from '../utils/describe-target';
 
@@ -20,6 +20,7 @@ type AuditLogTableProps = {
 };
 
 export function AuditLogTable({ entries, loading, filtered }: AuditLogTableProps) {
+  const formatTimestamp = usePlantTimestamp();
   return (
     <Table caption="Audit log entries, newest first">
       <thead>

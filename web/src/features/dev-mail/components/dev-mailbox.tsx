@@ -3,10 +3,11 @@ import { ErrorNotice } from '../../../components/errors/error-notice';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { isApiError } from '../../../lib/api';
-import { formatTimestamp } from '../../../lib/format-time';
+import { usePlantTimestamp } from '../../alerts/hooks/use-plant-time-zone';
 import { devMailQueryOptions, type CapturedMail } from '../api/get-dev-mail';
 
 function MailItem({ mail }: { mail: CapturedMail }) {
+  const formatTimestamp = usePlantTimestamp();
   return (
     <li className="rounded-sm border border-rule bg-panel">
       <details>

@@ -1,7 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { ErrorNotice } from '../../../components/errors/error-notice';
 import { SkeletonRows, Table, Td, Th } from '../../../components/ui/table';
-import { formatTimestamp } from '../../../lib/format-time';
+import { usePlantTimestamp } from '../../alerts/hooks/use-plant-time-zone';
 import { ingestSourcesQueryOptions, type IngestSource } from '../api/get-ingest-sources';
 import { EditSourceLoops } from './edit-source-loops';
 import { RevokeSourceButton } from './revoke-source-button';
@@ -9,6 +9,7 @@ import { RevokeSourceButton } from './revoke-source-button';
 const HEADINGS = ['Name', 'Loops', 'Token starts with', 'Created', 'Last used', 'State', 'Actions'];
 
 function SourceRow({ source }: { source: IngestSource }) {
+  const formatTimestamp = usePlantTimestamp();
   return (
     <tr className={source.revokedAt ? 'text-ink/60' : undefined}>
       <Td>

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { describeError } from '../../../components/errors/describe-error';
 import { Button } from '../../../components/ui/button';
 import { Td } from '../../../components/ui/table';
-import { formatTimestamp } from '../../../lib/format-time';
+import { usePlantTimestamp } from '../../alerts/hooks/use-plant-time-zone';
 import { ROLE_LABELS, ROLES, type Role } from '../../session/roles';
 import { useUpdateUserRoles } from '../api/update-user-roles';
 import type { UserAccount } from '../api/get-users';
@@ -12,6 +12,7 @@ function sameRoles(a: readonly Role[], b: readonly Role[]): boolean {
 }
 
 export function UserRolesRow({ user }: { user: UserAccount }) {
+  const formatTimestamp = usePlantTimestamp();
   const [selected, setSelected] = useState<Role[]>(user.roles);
   const update = useUpdateUserRoles();
   const changed = !sameRoles(selected, user.roles);

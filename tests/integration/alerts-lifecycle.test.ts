@@ -208,6 +208,10 @@ describe('raising and clearing', () => {
     const again = await getAlert(open.id);
     expect(again).toMatchObject({ state: 'unacknowledged', active: true, activations: 2, clearedAt: null });
     expect(again.events.map((e) => e.kind)).toEqual(['raised', 'cleared', 'reactivated']);
+    // raisedAt stays the first raise; activeSince moves to the re-raise (what "for how long" counts from)
+    expect(again.raisedAt).toBe(again.events[0].at);
+    expect(again.activeSince).toBe(again.events[2].at);
+    expect(Date.parse(again.activeSince)).toBeGreaterThan(Date.parse(again.raisedAt));
     // returned → unacknowledged calls nobody new
     expect(await outbox(open.id, 'raised')).toBe(mailsBefore);
     expect(await outbox(open.id, 'reactivated')).toBe(0);

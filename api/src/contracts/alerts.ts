@@ -225,6 +225,8 @@ export const AlertSchema = z.object({
   /** The condition is present now. */
   active: z.boolean(),
   raisedAt: z.string(),
+  /** When the condition became present the last time: the raise, or the latest re-raise. */
+  activeSince: z.string(),
   clearedAt: z.string().nullable(),
   activations: z.number().int(),
   acknowledgedAt: z.string().nullable(),

@@ -71,6 +71,7 @@ async function insertAlert(
       version_id: spec.versionId,
       priority: spec.priority,
       raised_at: now,
+      active_since: now,
       summary: spec.summary,
       detail: JSON.stringify(spec.detail),
       direction: direction ? JSON.stringify(direction) : null,
@@ -151,6 +152,7 @@ async function reraiseOpen(
         summary: spec.summary,
         detail: JSON.stringify(spec.detail),
         direction: direction ? JSON.stringify(direction) : null,
+        active_since: now,
       },
     },
   );

@@ -26,6 +26,7 @@ export interface AlertRow {
   state: AlertState;
   active: boolean;
   raised_at: Date;
+  active_since: Date;
   cleared_at: Date | null;
   activations: number;
   acknowledged_at: Date | null;
@@ -99,6 +100,7 @@ export function toAlert(r: JoinedRow): Alert {
     state: r.state,
     active: r.active,
     raisedAt: r.raised_at.toISOString(),
+    activeSince: r.active_since.toISOString(),
     clearedAt: iso(r.cleared_at),
     activations: r.activations,
     acknowledgedAt: iso(r.acknowledged_at),

@@ -32,7 +32,10 @@ export function AlertFacts({ alert, timeZone, nowMs }: { alert: Alert; timeZone:
         {RULE_WORDS[alert.rule]}
         {alert.ruleVersion !== null ? `, version ${alert.ruleVersion}` : ''}
       </Fact>
-      <Fact label="Raised">{at(alert.raisedAt)}</Fact>
+      <Fact label="Raised">
+        {at(alert.raisedAt)}
+        {alert.activations > 1 ? `; again ${at(alert.activeSince)}` : ''}
+      </Fact>
       <Fact label="Condition">
         <ConditionWord alert={alert} /> <span className="text-ink/75">{conditionDuration(alert, nowMs)}</span>
       </Fact>

@@ -22,6 +22,7 @@ export function fakeAlert(overrides: Partial<Alert> = {}): Alert {
     state: 'unacknowledged',
     active: true,
     raisedAt: '2025-06-03T09:15:00Z',
+    activeSince: overrides.raisedAt ?? '2025-06-03T09:15:00Z',
     clearedAt: null,
     activations: 1,
     acknowledgedAt: null,

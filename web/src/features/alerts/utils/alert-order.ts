@@ -24,7 +24,7 @@ function urgencyRank(alert: Alert): number {
 
 /**
  * The alerts in the queue's order. `urgent`: by urgency (see {@link urgencyRank}), then priority
- * (P1 first), then the newest raise; `newest`: as the api lists them, newest raise first.
+ * (P1 first), then the latest raise or re-raise; `newest`: as the api lists them, newest first raise first.
  */
 export function orderAlerts(alerts: Alert[], order: QueueOrder): Alert[] {
   if (order === 'newest') return alerts;
@@ -32,7 +32,7 @@ export function orderAlerts(alerts: Alert[], order: QueueOrder): Alert[] {
     (a, b) =>
       urgencyRank(a) - urgencyRank(b) ||
       a.priority - b.priority ||
-      Date.parse(b.raisedAt) - Date.parse(a.raisedAt) ||
+      Date.parse(b.activeSince) - Date.parse(a.activeSince) ||
       b.number - a.number,
   );
 }

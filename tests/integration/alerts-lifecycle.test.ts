@@ -229,6 +229,16 @@ describe('raising and clearing', () => {
     expect(await listAlerts(`loopId=${loop.id}&from=${encodeURIComponent(future)}`)).toEqual([]);
     const bad = await operator.request<ErrorResponse>('GET', '/api/v1/alerts?state=sleeping');
     expect(bad.status).toBe(400);
+    // most urgent first: waiting alerts before handled and closed ones, P1 first among equals
+    const urgency = (a: { state: string; active: boolean }) =>
+      ['unacknowledged', 'returned_unacknowledged', 'acknowledged+', 'shelved', 'acknowledged', 'closed'].indexOf(
+        a.state === 'acknowledged' && a.active ? 'acknowledged+' : a.state,
+      );
+    const urgent = await listAlerts(`area=${area}&order=urgent&limit=1000`);
+    const ranks = urgent.map((a) => urgency(a) * 10 + a.priority);
+    expect(ranks).toEqual([...ranks].sort((x, y) => x - y));
+    expect(urgent[0].id).toBe(nis);
+    expect((await operator.request('GET', '/api/v1/alerts?order=loudest')).status).toBe(400);
     expect((await operator.request('GET', `/api/v1/alerts/${randomUUID()}`)).status).toBe(404);
     await closeOpen('nis');
   });

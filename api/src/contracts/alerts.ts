@@ -284,6 +284,12 @@ export const AlertListQuerySchema = z.object({
   from: Iso.optional(),
   to: Iso.optional(),
   limit: z.coerce.number().int().min(1).max(1000).default(200),
+  /**
+   * `newest` (default): newest first raise first. `urgent`: active and unacknowledged, then cleared
+   * but unacknowledged, acknowledged and active, shelved, acknowledged and cleared, closed; within
+   * each P1 first, then the latest raise or re-raise. The limit applies after the order.
+   */
+  order: z.enum(['newest', 'urgent']).default('newest'),
 });
 
 export const AcknowledgeBodySchema = z.object({ note: z.string().trim().max(2000).default('') });

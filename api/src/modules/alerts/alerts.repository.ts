@@ -63,7 +63,17 @@ export interface AlertFilter {
   to?: string;
   limit: number;
   ids?: string[];
+  order?: 'newest' | 'urgent';
 }
+
+/** The queue's urgency rank of an alert row (see AlertListQuerySchema.order). */
+const URGENCY_RANK = `CASE
+  WHEN a.state = 'unacknowledged' THEN 0
+  WHEN a.state = 'returned_unacknowledged' THEN 1
+  WHEN a.state = 'acknowledged' AND a.active THEN 2
+  WHEN a.state = 'shelved' THEN 3
+  WHEN a.state = 'acknowledged' THEN 4
+  ELSE 5 END`;
 
 export function selectAlerts(db: Db): Knex.QueryBuilder {
   return db('alerts as a')
@@ -119,7 +129,7 @@ export function toAlert(r: JoinedRow): Alert {
   };
 }
 
-/** Newest first; `states` already expanded (open → the four open states). */
+/** Newest first, or most urgent first; `states` already expanded (open → the four open states). */
 export async function listAlertRows(db: Db, filter: AlertFilter): Promise<Alert[]> {
   const rows = (await selectAlerts(db)
     .modify((q) => {
@@ -131,10 +141,14 @@ export async function listAlertRows(db: Db, filter: AlertFilter): Promise<Alert[
       if (filter.to) q.where('a.raised_at', '<', filter.to);
       if (filter.ids) q.whereIn('a.id', filter.ids);
     })
-    .orderBy([
-      { column: 'a.raised_at', order: 'desc' },
-      { column: 'a.number', order: 'desc' },
-    ])
+    .modify((q) => {
+      if (filter.order === 'urgent') q.orderByRaw(`${URGENCY_RANK}, a.priority, a.active_since DESC, a.number DESC`);
+      else
+        q.orderBy([
+          { column: 'a.raised_at', order: 'desc' },
+          { column: 'a.number', order: 'desc' },
+        ]);
+    })
     .limit(filter.limit)) as JoinedRow[];
   return rows.map(toAlert);
 }

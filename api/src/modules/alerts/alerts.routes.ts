@@ -43,7 +43,7 @@ export function registerAlertRoutes(routes: RouteTable, deps: AlertRouteDeps): v
       access: 'signed-in',
       tag,
       summary:
-        'Alerts, newest first; filter by state (comma-separated, `open` = all but closed), area, loop, priority, time',
+        'Alerts, newest first (or `order=urgent`: waiting for acknowledgement first, then by priority); filter by state (comma-separated, `open` = all but closed), area, loop, priority, time',
       query: AlertListQuerySchema,
       response: z.array(AlertSchema),
     },

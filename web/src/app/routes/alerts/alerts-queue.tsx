@@ -108,7 +108,8 @@ export function AlertsQueuePage() {
       )}
       {alerts.data && alerts.data.length >= (filters.limit ?? Infinity) ? (
         <p className="text-sm text-ink/75">
-          The newest {filters.limit} alerts are shown. Narrow the filters to find older ones.
+          {search.order === 'urgent' ? `The ${filters.limit} most urgent` : `The newest ${filters.limit}`} alerts are
+          shown. Narrow the filters to find the others.
         </p>
       ) : null}
     </div>

@@ -10,6 +10,8 @@ export type AlertFilters = {
   from?: string;
   to?: string;
   limit?: number;
+  /** `urgent`: the server picks and orders by urgency (so the limit keeps the most urgent). */
+  order?: 'urgent';
 };
 
 export const WAITING_STATES: AlertState[] = ['unacknowledged', 'returned_unacknowledged'];
@@ -24,6 +26,7 @@ export function alertQueryString(filters: AlertFilters): string {
   if (filters.from) query.set('from', filters.from);
   if (filters.to) query.set('to', filters.to);
   if (filters.limit) query.set('limit', String(filters.limit));
+  if (filters.order) query.set('order', filters.order);
   return query.toString();
 }
 

@@ -4,7 +4,7 @@ import { queueFilters, readQueueSearch, writeQueueSearch } from './queue-search'
 const NOW = Date.parse('2025-06-03T10:00:00Z');
 
 describe('the queue filters in the address', () => {
-  it('reads open alerts of every time when nothing is said', () => {
+  it('reads open alerts of every time, most urgent first, when nothing is said', () => {
     const search = readQueueSearch(new URLSearchParams());
     expect(queueFilters(search, NOW)).toEqual({
       states: ['open'],
@@ -14,8 +14,16 @@ describe('the queue filters in the address', () => {
       from: undefined,
       to: undefined,
       limit: 500,
+      order: 'urgent',
     });
     expect(writeQueueSearch(search).toString()).toBe('');
+  });
+
+  it('keeps "newest first" in the address and then leaves the order to the server default', () => {
+    const search = readQueueSearch(new URLSearchParams('order=newest'));
+    expect(search.order).toBe('newest');
+    expect(queueFilters(search, NOW)).not.toHaveProperty('order');
+    expect(writeQueueSearch(search).toString()).toBe('order=newest');
   });
 
   it('reads states, priorities and a rolling range, and drops what it does not know', () => {

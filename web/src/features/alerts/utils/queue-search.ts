@@ -93,5 +93,6 @@ export function queueFilters(search: QueueSearch, nowMs: number): AlertFilters {
     from: hours ? new Date(nowMs - hours * 3_600_000).toISOString() : search.from || undefined,
     to: search.range === 'custom' ? search.to || undefined : undefined,
     limit: 500,
+    ...(search.order === 'urgent' ? { order: 'urgent' as const } : {}),
   };
 }

@@ -12,11 +12,12 @@ export const BACKTEST_LIMITS = {
   /** Slots in one backtest (about 35 days at 1 s). */
   maxSamples: 3_000_000,
   /**
-   * Slots × signals (inputs plus outputs) of one recording: the replay holds the recording and
-   * each version's predictions as arrays of doubles in the api process, so this bounds its memory
-   * (30 million values: 3,000,000 slots of 10 signals, or 600,000 slots of 50).
+   * Values one backtest holds in memory as doubles: per slot the slot index, the inputs and
+   * outputs, and for each version its two replays of the outputs (one step ahead and free run).
+   * 40 million values (320 MB): 3,000,000 slots of a 1-input 1-output loop with 4 versions, or
+   * about 650,000 slots of a loop with 10 inputs and 10 outputs and 2 versions.
    */
-  maxValues: 30_000_000,
+  maxValues: 40_000_000,
   /** Lags of the residual autocorrelation, τ = 0 … maxLag. */
   maxLag: 25,
   /** Points of the measured-against-predicted chart (min and max per bucket). */

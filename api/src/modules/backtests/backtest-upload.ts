@@ -61,8 +61,9 @@ async function readUpload(
   rules: ReadingRules,
   tally: UploadTally,
   write: (rows: { line: number; reading: CheckedReading }[]) => Promise<number>,
-  maxFileBytes: number,
+  limits: { maxFileBytes: number; versions: number },
 ): Promise<{ firstK: number; lastK: number }> {
+  const { maxFileBytes } = limits;
   let chunk: { line: number; reading: CheckedReading }[] = [];
   const span = { firstK: Infinity, lastK: -Infinity };
   const flush = async () => {
@@ -73,7 +74,11 @@ async function readUpload(
     tally.accepted += accepted;
     tally.duplicates += chunk.length - accepted;
     chunk = [];
-    requireSlotLimit(span.lastK - span.firstK + 1, rules, `The file "${tally.fileName}"`);
+    requireSlotLimit(
+      span.lastK - span.firstK + 1,
+      { ...rules, versions: limits.versions },
+      `The file "${tally.fileName}"`,
+    );
   };
   await readCheckedRows(csv, mapping, rules, tally, async (line, reading) => {
     span.firstK = Math.min(span.firstK, reading.k);
@@ -117,7 +122,10 @@ export async function createUploadBacktest(
       const job = { loopId: loop.id, versionIds: fields.versionIds, createdBy: actor.id, upload: tally };
       const backtestId = await insertBacktest(trx, job);
       const write = await openSampleWriter(trx, backtestId);
-      await readUpload(csv, fields.mapping, rules, tally, write, deps.maxFileBytes);
+      await readUpload(csv, fields.mapping, rules, tally, write, {
+        maxFileBytes: deps.maxFileBytes,
+        versions: fields.versionIds.length,
+      });
       requireEnoughReadings(tally.accepted, `The file "${tally.fileName}"`);
       await trx('backtests')
         .where({ id: backtestId })

@@ -39,7 +39,7 @@ export function registerBacktestRoutes(routes: RouteTable, deps: { db: Db; confi
         `Either JSON {"versionIds","from","to"} over the stored readings with from ≤ slot time < to, or multipart/form-data with the fields ` +
         `"versionIds" (a JSON array) and "mapping" (JSON, as for a readings import) and then the CSV "file": its rows are checked as an import checks them ` +
         `and kept apart from the live readings (the tally and the first bad rows with their line come back). At most ${BACKTEST_LIMITS.maxSamples.toLocaleString('en-GB')} ` +
-        `slots, at most ${BACKTEST_LIMITS.maxValues.toLocaleString('en-GB')} slots × signals and at least ${MIN_READINGS} readings (422 otherwise); ` +
+        `slots, at most ${BACKTEST_LIMITS.maxValues.toLocaleString('en-GB')} values in memory (per slot the inputs, outputs and two replays of the outputs per version) and at least ${MIN_READINGS} readings (422 otherwise); ` +
         'versions of another loop: 422',
       body: BacktestRangeBodySchema.optional(),
       multipart: { fields: BacktestUploadFieldsSchema, file: 'file' },

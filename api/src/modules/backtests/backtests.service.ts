@@ -25,24 +25,29 @@ export const MIN_READINGS = 2 * BACKTEST_LIMITS.maxLag + 2;
 const LIST_LIMIT = 50;
 const count = (n: number) => n.toLocaleString('en-GB');
 
+/** Doubles a backtest holds per slot: the slot, inputs and outputs, two replays per version. */
+export const valuesPerSlot = (loop: { inputs: number; outputs: number; versions: number }) =>
+  1 + loop.inputs + loop.outputs * (1 + 2 * loop.versions);
+
 /**
  * 422 when a recording of `slots` slots is longer than a backtest takes: more than maxSamples
- * slots, or more than maxValues slots × signals (the arrays the replay holds in memory).
+ * slots, or more than maxValues values in memory (see {@link valuesPerSlot}).
  */
 export function requireSlotLimit(
   slots: number,
-  loop: { samplePeriodS: number; inputs: number; outputs: number },
+  loop: { samplePeriodS: number; inputs: number; outputs: number; versions: number },
   what: string,
 ): void {
   const { samplePeriodS } = loop;
-  const signals = loop.inputs + loop.outputs;
-  const fitting = Math.min(BACKTEST_LIMITS.maxSamples, Math.floor(BACKTEST_LIMITS.maxValues / signals));
+  const fitting = Math.min(BACKTEST_LIMITS.maxSamples, Math.floor(BACKTEST_LIMITS.maxValues / valuesPerSlot(loop)));
   if (slots <= fitting) return;
   const days = (fitting * samplePeriodS) / 86_400;
+  const versions = loop.versions === 1 ? '1 version' : `${loop.versions} versions`;
   const limit =
     fitting < BACKTEST_LIMITS.maxSamples
-      ? `a backtest holds at most ${count(BACKTEST_LIMITS.maxValues)} values (slots × signals) in memory, ` +
-        `which for this loop's ${signals} signals is ${count(fitting)} slots`
+      ? `a backtest holds at most ${count(BACKTEST_LIMITS.maxValues)} values in memory (per slot its inputs and ` +
+        `outputs and two replays of the outputs per version), which for this loop's ${loop.inputs + loop.outputs} ` +
+        `signals and ${versions} is ${count(fitting)} slots`
       : `a backtest takes at most ${count(BACKTEST_LIMITS.maxSamples)} slots`;
   throw new AppError(
     422,
@@ -100,7 +105,7 @@ export async function createRangeBacktest(db: Db, actor: SignedInUser, loopId: s
   const fromMs = Date.parse(body.from);
   const toMs = Date.parse(body.to);
   const what = `The range ${new Date(fromMs).toISOString()} … ${new Date(toMs).toISOString()}`;
-  requireSlotLimit(slotsBetween(fromMs, toMs, loop.samplePeriodS), loop, what);
+  requireSlotLimit(slotsBetween(fromMs, toMs, loop.samplePeriodS), { ...loop, versions: body.versionIds.length }, what);
   const [{ readings }] = await db('readings')
     .where('loop_id', loop.id)
     .where('slot_at', '>=', new Date(fromMs))

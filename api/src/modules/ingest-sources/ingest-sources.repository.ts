@@ -107,8 +107,12 @@ export async function useIngestToken(db: Db, token: string): Promise<{ sourceId:
   if (known) return known;
   let pending = pendingLookups.get(hash);
   if (!pending) {
-    pending = lookUpIngestToken(db, hash).finally(() => pendingLookups.delete(hash));
-    pendingLookups.set(hash, pending);
+    const lookup = lookUpIngestToken(db, hash).finally(() => {
+      // a forget may have started a newer look-up of the same token meanwhile: leave that one
+      if (pendingLookups.get(hash) === lookup) pendingLookups.delete(hash);
+    });
+    pendingLookups.set(hash, lookup);
+    pending = lookup;
   }
   return pending;
 }

@@ -12,6 +12,8 @@ import type { LiveLoop } from './live-loop.js';
  * The drift rules on the readings a batch just stored, inside the ingest transaction (the loop's
  * tracking row is locked): the rules' detector states move on, raises and clears become alerts, and
  * the tracking status says `diverged` while a rule is raised and `drifting` while one builds up.
+ * `transitions` counts the raises and clears, also those that changed no alert (a raise recorded
+ * during maintenance): the caller commits such a batch durably.
  * Late readings (not newer than the last slot) are stored and scored but do not feed the rules:
  * the present is judged in slot order only.
  */
@@ -22,12 +24,12 @@ export async function checkDrift(
   folded: TrackingState,
   stored: ScoredReading[],
   now: Date,
-): Promise<{ tracking: TrackingState; changes: AlertChange[] }> {
+): Promise<{ tracking: TrackingState; changes: AlertChange[]; transitions: number }> {
   const fresh = stored.filter((r) => before.lastSlotMs === null || r.slotMs > before.lastSlotMs);
-  if (!fresh.length) return { tracking: folded, changes: [] };
+  if (!fresh.length) return { tracking: folded, changes: [], transitions: 0 };
   // on a cache miss, read through the transaction's connection: no second connection while one is held
   const ruleSet = await recentRuleSet(trx, target.id);
-  if (!ruleSet.rules.length) return { tracking: folded, changes: [] };
+  if (!ruleSet.rules.length) return { tracking: folded, changes: [], transitions: 0 };
   const evaluation = evaluateRules(
     ruleSet.rules,
     before.ruleStates,
@@ -46,7 +48,11 @@ export async function checkDrift(
   const changes = evaluation.transitions.length
     ? await applyToAlerts(trx, target, ruleSet, before, evaluation.transitions, now)
     : [];
-  return { tracking: { ...folded, status, ruleStates: evaluation.states }, changes };
+  return {
+    tracking: { ...folded, status, ruleStates: evaluation.states },
+    changes,
+    transitions: evaluation.transitions.length,
+  };
 }
 
 /**

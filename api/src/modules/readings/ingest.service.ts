@@ -55,19 +55,20 @@ function sortBatch(items: unknown[], rules: ReadingRules) {
 }
 
 /**
- * How the ingest transaction commits. A batch that raised, cleared or otherwise changed an alert
- * (whose mail waits in the outbox) commits as every other transaction does: the answer waits until
- * the commit is on disk. A batch of readings alone commits asynchronously: the answer does not wait
- * for the write-ahead log's flush, which on a busy or virtualised disk can stall for a second and
- * would hold up every reading behind it. The database stays consistent; only a crash of PostgreSQL
- * itself (not of the api) can lose the last fraction of a second of such batches (at most three
- * times wal_writer_delay, 0.6 s by default), and then readings, residuals and rule states roll
- * back together, so the rules pick up from the stored state with the next reading. Bridges that
- * must never lose an acknowledged reading re-send their last few readings: the ingest counts them
- * as duplicates. INGEST_SYNCHRONOUS_COMMIT=true makes every batch wait for the flush.
+ * How the ingest transaction commits. A batch in which a drift rule raised or cleared (an alert
+ * changed and its mail waits in the outbox, or a raise was recorded during maintenance) commits as
+ * every other transaction does: the answer waits until the commit is on disk. A batch of readings
+ * alone commits asynchronously: the answer does not wait for the write-ahead log's flush, which on
+ * a busy or virtualised disk can stall for a second and would hold up every reading behind it. The
+ * database stays consistent; only a crash of PostgreSQL itself (not of the api) can lose the last
+ * fraction of a second of such batches (at most three times wal_writer_delay, 0.6 s by default),
+ * and then readings, residuals and rule states roll back together, so the rules pick up from the
+ * stored state with the next reading. Bridges that must never lose an acknowledged reading re-send
+ * their last few readings: the ingest counts them as duplicates. INGEST_SYNCHRONOUS_COMMIT=true
+ * makes every batch wait for the flush.
  */
-async function commitDurably(trx: Knex.Transaction, changes: unknown[], synchronous: boolean): Promise<void> {
-  if (changes.length === 0 && !synchronous) await trx.raw('SET LOCAL synchronous_commit TO off');
+async function commitDurably(trx: Knex.Transaction, ruleTransitions: number, synchronous: boolean): Promise<void> {
+  if (ruleTransitions === 0 && !synchronous) await trx.raw('SET LOCAL synchronous_commit TO off');
 }
 
 /**
@@ -95,10 +96,11 @@ export async function ingestReadings(
     );
     if (!stored.length) return { before, after: before, stored, changes: [] };
     const folded = foldReadings(before, target, stored);
-    const { tracking: after, changes } = await checkDrift(trx, target, before, folded, stored, new Date(nowMs));
+    const drift = await checkDrift(trx, target, before, folded, stored, new Date(nowMs));
+    const { tracking: after, changes } = drift;
     await saveTracking(trx, target.id, after);
     await forgetTrendMinutes(trx, target, stored[0].slotMs, stored[stored.length - 1].slotMs);
-    await commitDurably(trx, changes, deps.synchronousCommit);
+    await commitDurably(trx, drift.transitions, deps.synchronousCommit);
     return { before, after, stored, changes };
   });
   if (outcome.stored.length) announceBatch(deps.publisher, target, outcome, nowMs);

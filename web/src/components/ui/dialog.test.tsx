@@ -13,6 +13,10 @@ function renderDialog(onClose = vi.fn()) {
         </label>
         <button type="button">Close the alert</button>
         <button type="button">Cancel</button>
+        <input type="hidden" name="alertId" value="a1" />
+        <div hidden>
+          <button type="button">Not shown</button>
+        </div>
       </Dialog>
     </div>,
   );
@@ -20,7 +24,7 @@ function renderDialog(onClose = vi.fn()) {
 }
 
 describe('Dialog', () => {
-  it('takes the focus, keeps Tab and Shift+Tab on its own controls, and closes on Escape', () => {
+  it('takes the focus, keeps Tab and Shift+Tab on its own shown controls, and closes on Escape', () => {
     const onClose = renderDialog();
     const panel = screen.getByRole('dialog', { name: 'Close alert 4' });
     expect(document.activeElement).toBe(panel);

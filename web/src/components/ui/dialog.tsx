@@ -13,8 +13,22 @@ const FOCUSABLE =
  * Tab and Shift+Tab go round the panel's own controls (WAI-ARIA modal dialog pattern): focus never
  * wanders to the page behind the dialog.
  */
+/**
+ * The controls Tab stops at: not hidden, and of a group of radio buttons only the checked one (or
+ * every one while none is checked, as browsers do).
+ */
+function tabStops(panel: HTMLElement): HTMLElement[] {
+  const radios = [...panel.querySelectorAll<HTMLInputElement>('input[type="radio"]')];
+  return [...panel.querySelectorAll<HTMLElement>(FOCUSABLE)].filter((el) => {
+    if (el.closest('[hidden], [inert]')) return false;
+    if (!(el instanceof HTMLInputElement)) return true;
+    if (el.type === 'hidden') return false;
+    return el.type !== 'radio' || el.checked || !radios.some((r) => r.name === el.name && r.checked);
+  });
+}
+
 function keepFocusInside(panel: HTMLElement, event: KeyboardEvent): void {
-  const focusable = [...panel.querySelectorAll<HTMLElement>(FOCUSABLE)];
+  const focusable = tabStops(panel);
   if (focusable.length === 0) {
     event.preventDefault();
     panel.focus();

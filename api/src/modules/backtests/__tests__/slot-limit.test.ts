@@ -13,7 +13,7 @@ const refusal = (run: () => void) => {
 
 describe('requireSlotLimit', () => {
   it('takes up to maxSamples slots of a small loop and refuses one more, with the days it means', () => {
-    const loop = { samplePeriodS: 1, inputs: 1, outputs: 1 };
+    const loop = { samplePeriodS: 1, inputs: 1, outputs: 1, versions: 4 };
     expect(refusal(() => requireSlotLimit(BACKTEST_LIMITS.maxSamples, loop, 'The range'))).toBeNull();
     const refused = refusal(() => requireSlotLimit(BACKTEST_LIMITS.maxSamples + 1, loop, 'The range'));
     expect(refused).toMatchObject({ status: 422, code: 'recording_too_long' });
@@ -22,13 +22,15 @@ describe('requireSlotLimit', () => {
     );
   });
 
-  it("bounds slots × signals for a wide loop, so a backtest cannot fill the api's memory", () => {
-    const wide = { samplePeriodS: 10, inputs: 20, outputs: 30 };
-    expect(refusal(() => requireSlotLimit(600_000, wide, 'The file "week.csv"'))).toBeNull();
-    const refused = refusal(() => requireSlotLimit(600_001, wide, 'The file "week.csv"'));
+  it("bounds the values a wide loop's backtest holds, so it cannot fill the api's memory", () => {
+    // per slot: 1 + 20 inputs + 30 outputs × (1 + 2 × 2 versions) = 171 values; 40,000,000 / 171 = 233,918 slots
+    const wide = { samplePeriodS: 10, inputs: 20, outputs: 30, versions: 2 };
+    expect(refusal(() => requireSlotLimit(233_918, wide, 'The file "week.csv"'))).toBeNull();
+    const refused = refusal(() => requireSlotLimit(233_919, wide, 'The file "week.csv"'));
     expect(refused?.message).toBe(
-      'The file "week.csv" spans 600,001 slots at 10 s; a backtest holds at most 30,000,000 values (slots × signals) ' +
-        "in memory, which for this loop's 50 signals is 600,000 slots (69.4 days at this sample period). Shorten it.",
+      'The file "week.csv" spans 233,919 slots at 10 s; a backtest holds at most 40,000,000 values in memory ' +
+        "(per slot its inputs and outputs and two replays of the outputs per version), which for this loop's 50 " +
+        'signals and 2 versions is 233,918 slots (27.1 days at this sample period). Shorten it.',
     );
   });
 });

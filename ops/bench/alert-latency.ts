@@ -2,6 +2,7 @@ import { io, type Socket } from 'socket.io-client';
 import type { ClientToServerEvents, ServerToClientEvents } from '@shadowloop/simulator/events';
 import type { Db } from '../../api/src/db/knex.js';
 import { createPoster } from './http-post.js';
+import { seededUniform } from '@shadowloop/simulator/seeded-random';
 
 /** A band rule every bench loop gets: |r| > 0.3 for 3 samples raises. */
 const LIMIT = 0.3;
@@ -13,14 +14,7 @@ const percentile = (sorted: number[], p: number) =>
 
 /** Box–Muller on a small seeded generator (mulberry32): the same noise every run. */
 function seededNormal(seed: number) {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const uniform = seededUniform(seed);
   return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
 }
 

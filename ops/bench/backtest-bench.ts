@@ -25,6 +25,7 @@ import { ensureDatabase, migrateAndSeed, withDatabase } from '../lib/database.js
 import { freePort } from '../lib/ports.js';
 import { startCluster } from '../lib/postgres.js';
 import { printBenchTable, type BenchRow } from './engine-bench.js';
+import { seededUniform } from '@shadowloop/simulator/seeded-random';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SHAPE = { states: 10, inputs: 2, outputs: 2, samplePeriodS: 1, slots: 7 * 86_400 };
@@ -32,13 +33,7 @@ const NOISE = 0.05;
 
 /** Seeded uniform generator (mulberry32) and Box–Muller normals from it: the same data every run. */
 function seededNormal(seed: number) {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const uniform = seededUniform(seed);
   return { uniform, normal: () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform()) };
 }
 

@@ -14,6 +14,7 @@ import {
   stepResponse,
   type StateSpaceModel,
 } from '@shadowloop/simulator/engine';
+import { seededUniform } from '@shadowloop/simulator/seeded-random';
 
 export interface BenchRow {
   name: string;
@@ -24,15 +25,7 @@ export interface BenchRow {
 }
 
 /** Seeded uniform generator (mulberry32), so every run benchmarks the same models. */
-function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+const seededRandom = seededUniform;
 
 /** A stable model with n states, m inputs, p outputs and a nonzero operating point. */
 function benchModel(n: number, m: number, p: number, seed: number): Required<StateSpaceModel> {

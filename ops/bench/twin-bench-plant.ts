@@ -1,15 +1,8 @@
 import type { Knex } from 'knex';
+import { seededUniform } from '@shadowloop/simulator/seeded-random';
 
 /** Seeded uniform generator (mulberry32), so every run benchmarks the same models. */
-function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+const seededRandom = seededUniform;
 
 export interface BenchPlantShape {
   loops: number;

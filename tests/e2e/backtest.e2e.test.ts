@@ -1,10 +1,10 @@
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Loop, ModelVersion } from '../../api/src/contracts/registry.js';
-import { recordingCsv, recordModel } from '../helpers/backtest-fixtures.js';
+import { recordingCsv, recordModel, TANK_OPERATING_POINT, TANK_PLANT } from '../helpers/backtest-fixtures.js';
 import { createDraft, ENGINEER, REVIEWER, signedIn, uniqueTag } from '../helpers/registry-fixtures.js';
 import { loopWithTwin, slotMsAgo } from '../helpers/twin-fixtures.js';
-import { appUrl, launchBrowser, screenshotPath, signIn } from './browser.js';
+import { appUrl, launchBrowser, screenshotPath, signedInPage } from './browser.js';
 
 /**
  * Evidence for a review, in Chromium: the engineer uploads a recording of the plant as a CSV,
@@ -13,15 +13,8 @@ import { appUrl, launchBrowser, screenshotPath, signIn } from './browser.js';
  * by the engine's `step` from the draft's own model, so the draft must fit it at 100 % (up to
  * rounding) and the active version, with a quarter more gain from the valve, less.
  */
-const OPERATING_POINT = { x0: [25, 50], u0: [50] };
-const PLANT_MODEL = {
-  A: [
-    [0.9, 0.05],
-    [0, 0.7],
-  ],
-  B: [[0], [0.3]],
-  C: [[1, 0]],
-};
+const OPERATING_POINT = TANK_OPERATING_POINT;
+const PLANT_MODEL = TANK_PLANT;
 const ACTIVE_MODEL = { ...PLANT_MODEL, B: [[0], [0.375]] };
 const SLOTS = 3000;
 const NOTE = 'Recorded after the valve positioner was replaced.';
@@ -34,13 +27,7 @@ let candidate: ModelVersion;
 let csv = '';
 let backtestUrl = '';
 
-async function pageAs(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
-  contexts.push(context);
-  const page = await context.newPage();
-  await signIn(page, email);
-  return page;
-}
+const pageAs = (email: string) => signedInPage(browser, contexts, email);
 
 beforeAll(async () => {
   browser = await launchBrowser();

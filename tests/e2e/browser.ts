@@ -1,5 +1,5 @@
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type BrowserContextOptions, type Page } from 'playwright-core';
 import { inject } from 'vitest';
 import { DEMO_PASSWORD } from '../../ops/idp/demo-accounts.js';
 
@@ -42,4 +42,18 @@ export async function signIn(page: Page, email: string): Promise<void> {
 
 export function screenshotPath(name: string): string {
   return path.join(stack.outputDir, name);
+}
+
+/** A page in a context of its own, signed in as `email`; the context joins `contexts` for closing. */
+export async function signedInPage(
+  browser: Browser,
+  contexts: BrowserContext[],
+  email: string,
+  options: BrowserContextOptions = { viewport: { width: 1400, height: 1000 } },
+): Promise<Page> {
+  const context = await browser.newContext(options);
+  contexts.push(context);
+  const page = await context.newPage();
+  await signIn(page, email);
+  return page;
 }

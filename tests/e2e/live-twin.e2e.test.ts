@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Loop, ModelVersion } from '../../api/src/contracts/registry.js';
 import { ENGINEER, OPERATOR, signedIn } from '../helpers/registry-fixtures.js';
@@ -11,7 +11,7 @@ import {
   postReadings,
   reading,
 } from '../helpers/twin-fixtures.js';
-import { appUrl, launchBrowser, screenshotPath, signIn, stack } from './browser.js';
+import { appUrl, launchBrowser, screenshotPath, signedInPage, stack } from './browser.js';
 
 /**
  * The live twin in Chromium without the simulator: the test stores the predictions the stepping
@@ -52,13 +52,8 @@ async function storeSlot(slotMs: number, measured = measuredAt(slotMs)): Promise
   expect(posted.body).toMatchObject({ accepted: 1, rejected: [] });
 }
 
-async function pageAs(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 1000 }, timezoneId: 'America/New_York' });
-  contexts.push(context);
-  const page = await context.newPage();
-  await signIn(page, email);
-  return page;
-}
+const pageAs = (email: string) =>
+  signedInPage(browser, contexts, email, { viewport: { width: 1440, height: 1000 }, timezoneId: 'America/New_York' });
 
 beforeAll(async () => {
   browser = await launchBrowser();

@@ -1,6 +1,6 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appUrl, launchBrowser, screenshotPath, signIn } from './browser.js';
+import { appUrl, launchBrowser, screenshotPath, signedInPage } from './browser.js';
 
 /** Digester heating around its operating point, sampled every 10 s: sludge, water-jacket and wall temperatures. */
 const A_FROM_SPREADSHEET = '0.985\t0.012\t0.002\r\n0.03\t0.96\t0\r\n0.008\t0\t0.99\r\n';
@@ -13,13 +13,7 @@ const tag = `DIG-E2E-${Date.now().toString(36).toUpperCase()}`;
 let loopId = '';
 let analysisUrl = '';
 
-async function pageAs(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
-  contexts.push(context);
-  const page = await context.newPage();
-  await signIn(page, email);
-  return page;
-}
+const pageAs = (email: string) => signedInPage(browser, contexts, email);
 
 /** What a spreadsheet copy delivers: a paste event whose clipboard holds tab-separated rows. */
 async function pasteInto(page: Page, matrix: string, text: string): Promise<void> {

@@ -5,6 +5,17 @@ import type { ApiResponse, SessionClient } from './session-client.js';
 import { seededUniform } from '../../simulator/src/demo-plant/random.js';
 
 /** One recorded slot: its number and the inputs and outputs read there. */
+/** The two-tank plant the backtest tests record, at the operating point x0 = [25, 50], u0 = [50] (y0 = C x0 = 25). */
+export const TANK_OPERATING_POINT = { x0: [25, 50], u0: [50] };
+export const TANK_PLANT = {
+  A: [
+    [0.9, 0.05],
+    [0, 0.7],
+  ],
+  B: [[0], [0.3]],
+  C: [[1, 0]],
+};
+
 export interface RecordedSlot {
   k: number;
   u: number[];
@@ -64,13 +75,7 @@ export async function sendUpload<T>(
   const form = new FormData();
   for (const [name, value] of Object.entries(fields)) form.append(name, value);
   form.append('file', new Blob([csv], { type: 'text/csv' }), 'recording.csv');
-  const response = await client.raw(`${client.baseUrl}${path}`, {
-    method: 'POST',
-    body: form,
-    headers: { 'x-csrf-token': await client.csrf(), accept: 'application/json' },
-  });
-  const text = await response.text();
-  return { status: response.status, headers: response.headers, body: (text ? JSON.parse(text) : undefined) as T };
+  return client.postForm<T>(path, form);
 }
 
 /** Polls GET /api/v1/backtests/{id} until its status is one of `statuses`. */

@@ -121,11 +121,5 @@ export async function upload<T = unknown>(
 ): Promise<ApiResponse<T>> {
   const form = new FormData();
   for (const file of files) form.append('files', new Blob([file.content]), file.name);
-  const response = await client.raw(`${client.baseUrl}${path}`, {
-    method: 'POST',
-    body: form,
-    headers: { 'x-csrf-token': await client.csrf(), accept: 'application/json' },
-  });
-  const text = await response.text();
-  return { status: response.status, headers: response.headers, body: (text ? JSON.parse(text) : undefined) as T };
+  return client.postForm<T>(path, form);
 }

@@ -70,6 +70,17 @@ export class SessionClient {
     return this.csrfToken;
   }
 
+  /** POSTs multipart/form-data (with the CSRF token), as a browser form sends a file upload. */
+  async postForm<T = unknown>(path: string, form: FormData): Promise<ApiResponse<T>> {
+    const response = await this.raw(`${this.baseUrl}${path}`, {
+      method: 'POST',
+      body: form,
+      headers: { 'x-csrf-token': await this.csrf(), accept: 'application/json' },
+    });
+    const text = await response.text();
+    return { status: response.status, headers: response.headers, body: (text ? JSON.parse(text) : undefined) as T };
+  }
+
   async request<T = unknown>(
     method: string,
     path: string,

@@ -12,6 +12,8 @@ import {
   recordingCsv,
   recordModel,
   sendUpload,
+  TANK_OPERATING_POINT,
+  TANK_PLANT,
   waitForBacktest,
   type RecordedSlot,
 } from '../helpers/backtest-fixtures.js';
@@ -38,16 +40,9 @@ let engineer: SessionClient;
 let reviewer: SessionClient;
 let operator: SessionClient;
 
-/** The plant's true model, at the operating point x0 = [25, 50], u0 = [50] (y0 = C x0 = 25). */
-const OPERATING_POINT = { x0: [25, 50], u0: [50] };
-const TRUE_MODEL = {
-  A: [
-    [0.9, 0.05],
-    [0, 0.7],
-  ],
-  B: [[0], [0.3]],
-  C: [[1, 0]],
-};
+/** The plant's true model and operating point. */
+const OPERATING_POINT = TANK_OPERATING_POINT;
+const TRUE_MODEL = TANK_PLANT;
 /** The running version: 10 % more gain from the valve than the plant has. */
 const ACTIVE_MODEL = { ...TRUE_MODEL, B: [[0], [0.33]] };
 const KALMAN = {

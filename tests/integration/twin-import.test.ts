@@ -39,13 +39,7 @@ async function send<T>(
   const form = new FormData();
   for (const [name, value] of Object.entries(fields)) form.append(name, value);
   form.append('file', new Blob([csv], { type: 'text/csv' }), 'history.csv');
-  const response = await client.raw(`${client.baseUrl}${path}`, {
-    method: 'POST',
-    body: form,
-    headers: { 'x-csrf-token': await client.csrf(), accept: 'application/json' },
-  });
-  const text = await response.text();
-  return { status: response.status, headers: response.headers, body: (text ? JSON.parse(text) : undefined) as T };
+  return client.postForm<T>(path, form);
 }
 
 /** A year-old history every 10 s: time, level, a comment column, valve. */

@@ -1,16 +1,8 @@
 import { expect } from 'vitest';
+import { seededUniform } from '../../simulator/src/lib/seeded-random.js';
 
 /** Deterministic uniform generator on [0, 1) (mulberry32), so every cross-check sees the same matrices. */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export const seededRandom = seededUniform;
 
 /** rows×columns matrix with entries uniform on [−scale, scale). */
 export function randomMatrix(random: () => number, rows: number, columns: number, scale = 1): number[][] {

@@ -2,17 +2,9 @@
  * Seeded random numbers for the demo plant, so that a run can be replayed: the same seed gives the
  * same noise, the same operator moves and the same readings.
  */
+import { seededUniform } from '../lib/seeded-random.js';
 
-/** Uniform on [0, 1) (mulberry32, a 32-bit generator with a full period of 2^32). */
-export function seededUniform(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { seededUniform };
 
 /**
  * Standard normal deviates by the Box–Muller transform (G. E. P. Box, M. E. Muller, Ann. Math.

@@ -1,4 +1,4 @@
-import type { OpenApiDocument } from './api/get-openapi';
+import type { JsonSchema, OpenApiDocument } from './api/get-openapi';
 
 /**
  * A small document in the shape buildOpenApi (api/src/http/openapi.ts) writes: excerpts of the
@@ -26,6 +26,8 @@ const guarded = { 401: errorResponse, 403: errorResponse };
 const signedIn: Record<string, string[]>[] = [{ session: [] }, { bearer: [] }];
 const pathParameter = (name: string) => ({ name, in: 'path', required: true, schema: { type: 'string' } });
 const dateTime = { type: 'string', format: 'date-time' };
+/** A success answer with a JSON body, as the route table documents it. */
+const jsonSuccess = (schema: JsonSchema) => ({ description: 'Success', content: { 'application/json': { schema } } });
 
 export const OPENAPI_FIXTURE: OpenApiDocument = {
   openapi: '3.1.0',
@@ -53,29 +55,22 @@ export const OPENAPI_FIXTURE: OpenApiDocument = {
         security: signedIn,
         parameters: [],
         responses: {
-          200: {
-            description: 'Success',
-            content: {
-              'application/json': {
-                schema: {
+          200: jsonSuccess({
+            type: 'array',
+            items: {
+              type: 'object',
+              properties: {
+                id: { type: 'string', format: 'uuid' },
+                email: { type: 'string', format: 'email' },
+                roles: {
                   type: 'array',
-                  items: {
-                    type: 'object',
-                    properties: {
-                      id: { type: 'string', format: 'uuid' },
-                      email: { type: 'string', format: 'email' },
-                      roles: {
-                        type: 'array',
-                        items: { type: 'string', enum: ['operator', 'engineer', 'oncall', 'admin'] },
-                      },
-                      lastSignInAt: { anyOf: [dateTime, { type: 'null' }] },
-                    },
-                    required: ['id', 'email', 'roles', 'lastSignInAt'],
-                  },
+                  items: { type: 'string', enum: ['operator', 'engineer', 'oncall', 'admin'] },
                 },
+                lastSignInAt: { anyOf: [dateTime, { type: 'null' }] },
               },
+              required: ['id', 'email', 'roles', 'lastSignInAt'],
             },
-          },
+          }),
           ...guarded,
         },
       },
@@ -92,22 +87,15 @@ export const OPENAPI_FIXTURE: OpenApiDocument = {
           { name: 'maxPoints', in: 'query', required: false, schema: { default: 2000, type: 'integer', minimum: 10 } },
         ],
         responses: {
-          200: {
-            description: 'Success',
-            content: {
-              'application/json': {
-                schema: {
-                  type: 'object',
-                  properties: {
-                    t: { type: 'array', items: { type: 'string' } },
-                    measured: { type: 'array', items: { type: 'array', items: { type: ['number', 'null'] } } },
-                    downsampled: { type: 'boolean' },
-                  },
-                  required: ['t', 'measured', 'downsampled'],
-                },
-              },
+          200: jsonSuccess({
+            type: 'object',
+            properties: {
+              t: { type: 'array', items: { type: 'string' } },
+              measured: { type: 'array', items: { type: 'array', items: { type: ['number', 'null'] } } },
+              downsampled: { type: 'boolean' },
             },
-          },
+            required: ['t', 'measured', 'downsampled'],
+          }),
           ...guarded,
         },
       },
@@ -133,22 +121,15 @@ export const OPENAPI_FIXTURE: OpenApiDocument = {
           },
         },
         responses: {
-          200: {
-            description: 'Success',
-            content: {
-              'application/json': {
-                schema: {
-                  type: 'object',
-                  properties: {
-                    accepted: { type: 'integer' },
-                    duplicates: { type: 'integer' },
-                    rejected: { type: 'array', items: { type: 'object', properties: { index: { type: 'integer' } } } },
-                  },
-                  required: ['accepted', 'duplicates', 'rejected'],
-                },
-              },
+          200: jsonSuccess({
+            type: 'object',
+            properties: {
+              accepted: { type: 'integer' },
+              duplicates: { type: 'integer' },
+              rejected: { type: 'array', items: { type: 'object', properties: { index: { type: 'integer' } } } },
             },
-          },
+            required: ['accepted', 'duplicates', 'rejected'],
+          }),
           ...guarded,
           400: errorResponse,
         },
@@ -190,21 +171,14 @@ export const OPENAPI_FIXTURE: OpenApiDocument = {
           },
         },
         responses: {
-          202: {
-            description: 'Success',
-            content: {
-              'application/json': {
-                schema: {
-                  type: 'object',
-                  properties: {
-                    id: { type: 'string', format: 'uuid' },
-                    status: { type: 'string', enum: ['queued', 'running', 'succeeded', 'failed', 'cancelled'] },
-                  },
-                  required: ['id', 'status'],
-                },
-              },
+          202: jsonSuccess({
+            type: 'object',
+            properties: {
+              id: { type: 'string', format: 'uuid' },
+              status: { type: 'string', enum: ['queued', 'running', 'succeeded', 'failed', 'cancelled'] },
             },
-          },
+            required: ['id', 'status'],
+          }),
           ...guarded,
           400: errorResponse,
         },

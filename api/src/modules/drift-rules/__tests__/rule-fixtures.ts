@@ -1,5 +1,6 @@
 import type { BandParams, CusumParams, DriftRuleKind, DriftRuleParams, NisParams } from '../../../contracts/alerts.js';
 import type { RuleContext, RuleInForce, RuleReading } from '../rule-runtime.js';
+import { seededUniform } from '@shadowloop/simulator/seeded-random';
 
 /** Rules, contexts and readings for the drift-rule unit tests (slot k at k seconds). */
 export function rule(kind: DriftRuleKind, params: DriftRuleParams, overrides: Partial<RuleInForce> = {}): RuleInForce {
@@ -54,12 +55,6 @@ export function readings(residuals: (number[] | number | null)[], start = 100): 
 
 /** Seeded standard normal deviates (mulberry32 uniforms, Box–Muller), so every run sees the same residuals. */
 export function seededNormal(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const uniform = seededUniform(seed);
   return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
 }

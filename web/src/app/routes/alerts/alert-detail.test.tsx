@@ -6,16 +6,7 @@ import { bodyOf, errorBody, queriesTo, signedInAs, stubFetch, type FakeRoutes } 
 import { fakeLoop } from '../../../test/registry-fixtures';
 import { renderApp } from '../../../test/render-app';
 
-vi.mock('uplot', () => ({
-  default: class {
-    static tzDate(date: Date) {
-      return date;
-    }
-    setData() {}
-    setSize() {}
-    destroy() {}
-  },
-}));
+vi.mock('uplot', () => import('../../../test/fake-uplot'));
 
 const loop = fakeLoop({
   id: AERATION_LOOP_ID,

@@ -3,13 +3,7 @@ import { describe, expect, it, vi } from 'vitest';
 import { queriesTo, signedInAs, stubFetch } from '../../../test/fake-api';
 import { renderApp } from '../../../test/render-app';
 
-vi.mock('uplot', () => ({
-  default: class {
-    setData() {}
-    setSize() {}
-    destroy() {}
-  },
-}));
+vi.mock('uplot', () => import('../../../test/fake-uplot'));
 
 const LOAD = {
   from: '2025-05-27T10:00:00Z',

@@ -14,13 +14,7 @@ import { bodyOf, signedInAs, stubFetch, type FakeRoutes } from '../../../test/fa
 import { renderApp } from '../../../test/render-app';
 import type { Backtest } from '../../../features/backtests/types';
 
-vi.mock('uplot', () => ({
-  default: class {
-    setData() {}
-    setSize() {}
-    destroy() {}
-  },
-}));
+vi.mock('uplot', () => import('../../../test/fake-uplot'));
 
 const path = `/api/v1/backtests/${BACKTEST_ID}`;
 

@@ -14,13 +14,7 @@ import { bodyOf, signedInAs, stubFetch, type FakeRoutes } from '../../../test/fa
 import { fakeVersion } from '../../../test/registry-fixtures';
 import { renderApp } from '../../../test/render-app';
 
-vi.mock('uplot', () => ({
-  default: class {
-    setData() {}
-    setSize() {}
-    destroy() {}
-  },
-}));
+vi.mock('uplot', () => import('../../../test/fake-uplot'));
 
 const loopPath = `/api/v1/loops/${DO_LOOP.id}`;
 const versions = [

@@ -6,17 +6,7 @@ import { installFakeSocket } from '../../../test/fake-socket';
 import { fakeLoop } from '../../../test/registry-fixtures';
 import { renderApp } from '../../../test/render-app';
 
-vi.mock('uplot', () => ({
-  default: class {
-    setData() {}
-    setSize() {}
-    setScale() {}
-    batch(run: () => void) {
-      run();
-    }
-    destroy() {}
-  },
-}));
+vi.mock('uplot', () => import('../../../test/fake-uplot'));
 
 const loop = fakeLoop({
   status: 'in_step',

@@ -4,13 +4,7 @@ import { errorBody, signedInAs, stubFetch, type FakeRoutes } from '../../../test
 import { fakeLoop, fakeVersion } from '../../../test/registry-fixtures';
 import { renderApp } from '../../../test/render-app';
 
-vi.mock('uplot', () => ({
-  default: class {
-    setData() {}
-    setSize() {}
-    destroy() {}
-  },
-}));
+vi.mock('uplot', () => import('../../../test/fake-uplot'));
 
 const LOOP = fakeLoop();
 const VERSION = fakeVersion();

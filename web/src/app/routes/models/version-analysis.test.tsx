@@ -6,13 +6,7 @@ import { stubFetch } from '../../../test/fake-api';
 import { fakeVersion } from '../../../test/registry-fixtures';
 import { renderApp } from '../../../test/render-app';
 
-vi.mock('uplot', () => ({
-  default: class {
-    setData() {}
-    setSize() {}
-    destroy() {}
-  },
-}));
+vi.mock('uplot', () => import('../../../test/fake-uplot'));
 
 describe('the analysis page of a version', () => {
   it('leads with the verdict, plots the eigenvalues and lists the modes', async () => {

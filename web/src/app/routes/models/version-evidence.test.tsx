@@ -12,13 +12,7 @@ import { bodyOf, stubFetch } from '../../../test/fake-api';
 import { fakeVersion } from '../../../test/registry-fixtures';
 import { renderApp } from '../../../test/render-app';
 
-vi.mock('uplot', () => ({
-  default: class {
-    setData() {}
-    setSize() {}
-    destroy() {}
-  },
-}));
+vi.mock('uplot', () => import('../../../test/fake-uplot'));
 
 describe('evidence on the review page', () => {
   it('shows the reviewer each attached backtest: verdict, fit and alerts against the active version, and a link', async () => {

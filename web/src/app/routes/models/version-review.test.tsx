@@ -6,13 +6,7 @@ import { errorBody, stubFetch } from '../../../test/fake-api';
 import { fakeVersion } from '../../../test/registry-fixtures';
 import { renderApp } from '../../../test/render-app';
 
-vi.mock('uplot', () => ({
-  default: class {
-    setData() {}
-    setSize() {}
-    destroy() {}
-  },
-}));
+vi.mock('uplot', () => import('../../../test/fake-uplot'));
 
 describe('reviewing and activating a version', () => {
   it('explains the four-eyes rule to the author instead of offering approval', async () => {
